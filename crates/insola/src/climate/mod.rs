@@ -1,0 +1,1 @@
+//! Seasonal climate (placeholder, being written).

@@ -1,0 +1,1 @@
+//! Light of the sky (placeholder, being written).
