@@ -22,8 +22,14 @@ pub enum SpecError {
         message: String,
     },
     /// A field the format does not know.
-    #[error("unknown field `{field}` in `{section}`; known fields: {known}")]
+    #[error("{path}line {line}, column {column}: unknown field `{field}` in `{section}`; known fields: {known}")]
     UnknownField {
+        /// File name followed by `: `, or empty when parsing a string.
+        path: String,
+        /// 1-based line of the field.
+        line: usize,
+        /// 1-based column of the field.
+        column: usize,
         /// The section (dotted path) holding the field.
         section: String,
         /// The unknown field name.

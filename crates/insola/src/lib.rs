@@ -1,6 +1,21 @@
-//! Placeholder lib; being written.
+#![doc = include_str!("../README.md")]
+
+pub mod angle;
+pub mod calendar;
 pub mod climate;
+pub mod constants;
 pub mod error;
+pub mod frames;
 pub mod insolation;
 pub mod light;
+pub mod moons;
+pub mod orbit;
+mod planet;
+mod sky;
+pub mod spin;
+pub mod world;
+
 pub use error::{QueryError, SpecError};
+pub use planet::Planet;
+pub use sky::{Place, StarInstant, StarPosition};
+pub use world::WorldSpec;

@@ -1,0 +1,30 @@
+//! Small angle helpers shared by the sky code.
+
+use std::f64::consts::{PI, TAU};
+
+/// Wraps an angle in radians to `[0, 2π)`.
+#[inline]
+pub fn wrap_tau(a: f64) -> f64 {
+    let r = a.rem_euclid(TAU);
+    // rem_euclid can return TAU itself for tiny negative inputs because of rounding.
+    if r >= TAU { 0.0 } else { r }
+}
+
+/// Wraps an angle in radians to `[−π, π)`.
+#[inline]
+pub fn wrap_pi(a: f64) -> f64 {
+    wrap_tau(a + PI) - PI
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn wraps() {
+        assert!((wrap_tau(-0.5) - (TAU - 0.5)).abs() < 1e-15);
+        assert_eq!(wrap_tau(-1e-20), 0.0);
+        assert!((wrap_pi(3.0 * PI / 2.0) + PI / 2.0).abs() < 1e-15);
+        assert!(wrap_pi(PI) < PI);
+    }
+}

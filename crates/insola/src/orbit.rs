@@ -1,0 +1,254 @@
+//! The planet's orbit: Kepler's equation, true anomaly, distance and the star's ecliptic longitude.
+//!
+//! Angles in radians, times in seconds since the world's time zero. The star's ecliptic
+//! longitude λ is measured, as seen from the planet, from the northward equinox direction (the
+//! direction where the star crosses the planet's equator going north) in the sense of the
+//! orbital motion. The periapsis is fixed by `periapsis_longitude_rad` (ϖ): the star's ecliptic
+//! longitude at the moment the planet passes periapsis, so `λ = v + ϖ` with `v` the true anomaly
+//! (the convention of Berger 1978, where Earth's value is about 283°).
+
+use std::f64::consts::{PI, TAU};
+
+use crate::angle::{wrap_pi, wrap_tau};
+
+/// Largest eccentricity the solver is specified for. Validation allows up to this value.
+pub const MAX_ECCENTRICITY: f64 = 0.99;
+
+/// Solves Kepler's equation `E − e sin E = M` for the eccentric anomaly `E` (radians).
+///
+/// Robust for `0 ≤ e ≤ 0.99` and any finite `M`: Newton's method from `E = M` (or `π` for
+/// `e ≥ 0.8`, Meeus, *Astronomical Algorithms* ch. 30), kept inside a bracket so it cannot
+/// diverge. The result is in the same turn as `M` (`E − M` lies in `[−e, e]`).
+pub fn solve_kepler(mean_anomaly_rad: f64, e: f64) -> f64 {
+    if e == 0.0 {
+        return mean_anomaly_rad;
+    }
+    // Work in [−π, π) and add the whole turns back at the end so large M keep full precision.
+    let turns = (mean_anomaly_rad / TAU).round();
+    let m = wrap_pi(mean_anomaly_rad - turns * TAU);
+    // f(E) = E − e sin E − M is increasing; the root lies in [M − e, M + e].
+    let (mut lo, mut hi) = (m - e, m + e);
+    let mut ecc = if e < 0.8 { m } else { PI.copysign(m) };
+    ecc = ecc.clamp(lo, hi);
+    for _ in 0..60 {
+        let (s, c) = ecc.sin_cos();
+        let f = ecc - e * s - m;
+        if f.abs() < 1e-15 {
+            break;
+        }
+        if f > 0.0 {
+            hi = ecc;
+        } else {
+            lo = ecc;
+        }
+        let fp = 1.0 - e * c;
+        let mut next = ecc - f / fp;
+        if !(next > lo && next < hi) {
+            next = 0.5 * (lo + hi);
+        }
+        if (next - ecc).abs() < 1e-15 {
+            ecc = next;
+            break;
+        }
+        ecc = next;
+    }
+    ecc + turns * TAU
+}
+
+/// True anomaly `v` (radians) from the eccentric anomaly, in the same turn:
+/// `tan(v/2) = √((1+e)/(1−e)) tan(E/2)`.
+pub fn true_anomaly_from_eccentric(eccentric_anomaly_rad: f64, e: f64) -> f64 {
+    let turns = (eccentric_anomaly_rad / TAU).round();
+    let ecc = eccentric_anomaly_rad - turns * TAU;
+    let half = ecc / 2.0;
+    let v = 2.0 * ((1.0 + e).sqrt() * half.sin()).atan2((1.0 - e).sqrt() * half.cos());
+    v + turns * TAU
+}
+
+/// Mean anomaly (radians, in `[−π, π)`) of a point of the orbit given by its true anomaly.
+pub fn mean_anomaly_from_true(true_anomaly_rad: f64, e: f64) -> f64 {
+    let v = wrap_pi(true_anomaly_rad);
+    let half = v / 2.0;
+    let ecc = 2.0 * ((1.0 - e).sqrt() * half.sin()).atan2((1.0 + e).sqrt() * half.cos());
+    ecc - e * ecc.sin()
+}
+
+/// Where the planet is on its orbit at one instant.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct OrbitState {
+    /// Mean anomaly M, radians in `[0, 2π)`.
+    pub mean_anomaly_rad: f64,
+    /// True anomaly v, radians in `[0, 2π)`.
+    pub true_anomaly_rad: f64,
+    /// Distance in units of the semi-major axis, `r/a = 1 − e cos E`.
+    pub distance_factor: f64,
+    /// Ecliptic longitude of the star seen from the planet, `λ = v + ϖ`, radians in `[0, 2π)`.
+    pub star_longitude_rad: f64,
+    /// Mean longitude of the star, `L = M + ϖ`, radians in `[0, 2π)` (drives mean solar time).
+    pub star_mean_longitude_rad: f64,
+}
+
+/// A Keplerian orbit with a fixed periapsis (no precession).
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct Orbit {
+    /// Eccentricity, `0 ≤ e ≤ 0.99`.
+    pub eccentricity: f64,
+    /// Orbital period in seconds.
+    pub period_s: f64,
+    /// Star's ecliptic longitude at periapsis ϖ, radians.
+    pub periapsis_longitude_rad: f64,
+    /// Mean anomaly at time zero, radians.
+    pub mean_anomaly_at_zero_rad: f64,
+}
+
+impl Orbit {
+    /// Builds an orbit whose star stands at ecliptic longitude `star_longitude_at_zero_rad` at
+    /// time zero.
+    pub fn new(
+        eccentricity: f64,
+        period_s: f64,
+        periapsis_longitude_rad: f64,
+        star_longitude_at_zero_rad: f64,
+    ) -> Self {
+        let v0 = star_longitude_at_zero_rad - periapsis_longitude_rad;
+        Orbit {
+            eccentricity,
+            period_s,
+            periapsis_longitude_rad,
+            mean_anomaly_at_zero_rad: mean_anomaly_from_true(v0, eccentricity),
+        }
+    }
+
+    /// Mean motion in radians per second.
+    pub fn mean_motion_rad_s(&self) -> f64 {
+        TAU / self.period_s
+    }
+
+    /// Mean anomaly at time `t_s`, radians in `[0, 2π)`. Exact for any `t_s`: whole orbits are
+    /// removed in time before the angle is formed.
+    pub fn mean_anomaly_rad(&self, t_s: f64) -> f64 {
+        let frac = t_s.rem_euclid(self.period_s) / self.period_s;
+        wrap_tau(self.mean_anomaly_at_zero_rad + TAU * frac)
+    }
+
+    /// The orbit state at time `t_s` (seconds since time zero).
+    pub fn state_at(&self, t_s: f64) -> OrbitState {
+        let m = self.mean_anomaly_rad(t_s);
+        self.state_at_mean_anomaly(m)
+    }
+
+    /// The orbit state at a given mean anomaly (radians).
+    pub fn state_at_mean_anomaly(&self, mean_anomaly_rad: f64) -> OrbitState {
+        let e = self.eccentricity;
+        let ecc = solve_kepler(mean_anomaly_rad, e);
+        let v = true_anomaly_from_eccentric(ecc, e);
+        OrbitState {
+            mean_anomaly_rad: wrap_tau(mean_anomaly_rad),
+            true_anomaly_rad: wrap_tau(v),
+            distance_factor: 1.0 - e * ecc.cos(),
+            star_longitude_rad: wrap_tau(v + self.periapsis_longitude_rad),
+            star_mean_longitude_rad: wrap_tau(mean_anomaly_rad + self.periapsis_longitude_rad),
+        }
+    }
+
+    /// The first time at or after `after_s` when the star reaches ecliptic longitude
+    /// `longitude_rad`. Exact (inverts Kepler's equation), no search.
+    pub fn time_of_star_longitude(&self, longitude_rad: f64, after_s: f64) -> f64 {
+        let m = mean_anomaly_from_true(longitude_rad - self.periapsis_longitude_rad, self.eccentricity);
+        let dm = wrap_tau(m - self.mean_anomaly_at_zero_rad);
+        let first = dm / TAU * self.period_s;
+        let orbits = ((after_s - first) / self.period_s).ceil().max(0.0);
+        let mut t = first + orbits * self.period_s;
+        if t < after_s {
+            t += self.period_s;
+        }
+        t
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    fn deg(x: f64) -> f64 {
+        x.to_radians()
+    }
+
+    #[test]
+    fn meeus_example_30a() {
+        // Meeus, Astronomical Algorithms 2nd ed., example 30.a: e = 0.1, M = 5° → E = 5.554589°,
+        // v = 6.139762° (E read in the source; v also in public test suites of PyMeeus).
+        let e = solve_kepler(deg(5.0), 0.1);
+        assert!((e.to_degrees() - 5.554589).abs() < 1e-6, "{}", e.to_degrees());
+        let v = true_anomaly_from_eccentric(e, 0.1);
+        assert!((v.to_degrees() - 6.139762).abs() < 1e-6, "{}", v.to_degrees());
+    }
+
+    #[test]
+    fn meeus_chapter_30_table() {
+        // Meeus ch. 30 table of E for M = 5° (read in the source); e = 0.99 values read from
+        // the same table for the first two entries.
+        for (e, m, expected) in [
+            (0.2, 5.0, 6.246908),
+            (0.3, 5.0, 7.134960),
+            (0.5, 5.0, 9.950063),
+            (0.9, 5.0, 33.344447),
+            (0.99, 5.0, 45.361023),
+            (0.99, 1.0, 24.725822),
+        ] {
+            let got = solve_kepler(deg(m), e).to_degrees();
+            assert!((got - expected).abs() < 1e-6, "e={e} M={m}: {got}");
+        }
+        // Meeus p. 196 worked case in radians: e = 0.99, M = 0.2 rad → E = 1.066997365282 rad.
+        assert!((solve_kepler(0.2, 0.99) - 1.066_997_365_282).abs() < 1e-10);
+    }
+
+    #[test]
+    fn kepler_residual_small_everywhere() {
+        for e in [0.0, 0.01, 0.3, 0.7, 0.9, 0.95, 0.99] {
+            for k in -400..=400 {
+                let m = k as f64 * 0.0317;
+                let ecc = solve_kepler(m, e);
+                let r = ecc - e * ecc.sin() - m;
+                assert!(r.abs() < 1e-12, "e={e} M={m} residual {r}");
+            }
+        }
+    }
+
+    #[test]
+    fn mean_true_round_trip() {
+        for e in [0.0, 0.2, 0.9, 0.99] {
+            for k in 0..36 {
+                let v = deg(k as f64 * 10.0 - 175.0);
+                let m = mean_anomaly_from_true(v, e);
+                let back = true_anomaly_from_eccentric(solve_kepler(m, e), e);
+                assert!(wrap_pi(back - v).abs() < 1e-9, "e={e} v={v} back={back}");
+            }
+        }
+    }
+
+    #[test]
+    fn star_longitude_at_zero_is_honoured_and_inverse_time_is_exact() {
+        let orbit = Orbit::new(0.3, 1.0e7, deg(250.0), deg(40.0));
+        assert!((orbit.state_at(0.0).star_longitude_rad - deg(40.0)).abs() < 1e-12);
+        let t = orbit.time_of_star_longitude(deg(90.0), 0.0);
+        assert!(t >= 0.0 && t < orbit.period_s);
+        assert!((orbit.state_at(t).star_longitude_rad - deg(90.0)).abs() < 1e-9);
+        let t2 = orbit.time_of_star_longitude(deg(90.0), t + 1.0);
+        assert!((t2 - t - orbit.period_s).abs() < 1e-6);
+    }
+
+    #[test]
+    fn meeus_25a_equation_of_centre_and_radius() {
+        // Meeus example 25.a (1992 Oct 13.0 TD): M = 278.99397°, e = 0.016711668 give
+        // C = −1.89732° and R = 0.99766 AU (values read in the source; R with a = 1.000001018).
+        let e = 0.016_711_668;
+        let m = deg(278.99397);
+        let ecc = solve_kepler(m, e);
+        let v = true_anomaly_from_eccentric(ecc, e);
+        let c = wrap_pi(v - m).to_degrees();
+        assert!((c - (-1.89732)).abs() < 1e-4, "C = {c}");
+        let r = 1.000_001_018 * (1.0 - e * ecc.cos());
+        assert!((r - 0.99766).abs() < 1e-5, "R = {r}");
+    }
+}

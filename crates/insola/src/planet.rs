@@ -1,0 +1,195 @@
+//! [`Planet`]: a validated world in the precomputed form every sky query uses.
+
+use std::f64::consts::{PI, TAU};
+
+use crate::angle::wrap_tau;
+use crate::constants::{
+    AU_M, HORIZON_REFRACTION_EARTH_RAD, SECONDS_PER_DAY, SECONDS_PER_HOUR, STANDARD_PRESSURE_KPA,
+    SUN_LUMINOSITY_W, SUN_RADIUS_M, flux_at_distance_w_m2,
+};
+use crate::error::SpecError;
+use crate::orbit::Orbit;
+use crate::spin::{Spin, SpinSense, sidereal_from_solar_day, solar_from_sidereal_day};
+use crate::world::{WorldSpec, parse_utc_unix_s};
+
+/// A world ready for sky queries: orbit, spin and star, with every derived constant computed.
+///
+/// Build one with [`Planet::new`] from a [`WorldSpec`]; it is cheap to clone and `Send + Sync`,
+/// so one instance can serve many threads.
+///
+/// ```
+/// use insola::{Planet, WorldSpec, Place};
+/// let spec = WorldSpec::from_ron_str(r#"(
+///     name: "Pellucid",
+///     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
+///     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02,
+///             periapsis_longitude_deg: 100, period_days: 300),
+///     spin: (obliquity_deg: 20, solar_day_hours: 22),
+/// )"#).unwrap();
+/// let planet = Planet::new(&spec).unwrap();
+/// let noon = planet.time_of_solar_days(0.5);
+/// let star = planet.star_position(noon, Place::from_degrees(0.0, 0.0).unwrap());
+/// assert!(star.altitude_rad.to_degrees() > 60.0);
+/// ```
+#[derive(Debug, Clone, PartialEq)]
+pub struct Planet {
+    /// The world description this planet was built from.
+    pub spec: WorldSpec,
+    /// The orbit.
+    pub orbit: Orbit,
+    /// The rotation.
+    pub spin: Spin,
+    /// Stellar flux at the mean distance (semi-major axis), W m⁻².
+    pub flux_at_mean_distance_w_m2: f64,
+    /// Semi-major axis, metres.
+    pub semi_major_axis_m: f64,
+    /// Star radius, metres.
+    pub star_radius_m: f64,
+    /// Refraction lifting the star at the horizon, radians (0 without air or refraction).
+    pub horizon_refraction_rad: f64,
+    /// Seconds since the Unix epoch of time zero, for reference worlds tied to UTC.
+    pub utc_at_zero_unix_s: Option<f64>,
+}
+
+impl Planet {
+    /// Validates `spec` and precomputes the planet.
+    pub fn new(spec: &WorldSpec) -> Result<Planet, SpecError> {
+        spec.validate()?;
+        let year_s = spec.orbit.period_days * SECONDS_PER_DAY;
+        let obliquity_rad = spec.spin.obliquity_deg.to_radians();
+        let sense = SpinSense::from_obliquity_deg(spec.spin.obliquity_deg);
+        let tilt_rad = obliquity_rad.min(PI - obliquity_rad);
+        let (sidereal_day_s, solar_day_s) = if spec.spin.tidally_locked {
+            (year_s, f64::INFINITY)
+        } else if let Some(h) = spec.spin.solar_day_hours {
+            let sol = h * SECONDS_PER_HOUR;
+            (sidereal_from_solar_day(sol, year_s, sense), sol)
+        } else {
+            let sid = spec.spin.sidereal_day_hours.unwrap_or(24.0) * SECONDS_PER_HOUR;
+            (sid, solar_from_sidereal_day(sid, year_s, sense))
+        };
+        let orbit = Orbit::new(
+            spec.orbit.eccentricity,
+            year_s,
+            spec.orbit.periapsis_longitude_deg.to_radians(),
+            spec.epoch.star_longitude_deg.to_radians(),
+        );
+        let mean_longitude_0 = orbit.state_at(0.0).star_mean_longitude_rad;
+        let day_s = if solar_day_s.is_finite() { solar_day_s } else { sidereal_day_s };
+        let sidereal_angle_at_zero_rad = match spec.epoch.sidereal_angle_deg {
+            Some(a) => wrap_tau(a.to_radians()),
+            None => {
+                // Mean solar hour angle at the prime meridian, in the sense the sky turns:
+                // H = s (θ − L) = 2π T0/P_day − π (T0 = 0 is midnight).
+                let h = TAU * spec.epoch.prime_meridian_solar_time_hours * SECONDS_PER_HOUR / day_s - PI;
+                wrap_tau(mean_longitude_0 + sense.sign() * h)
+            }
+        };
+        let spin = Spin {
+            obliquity_rad,
+            tilt_rad,
+            sense,
+            sidereal_day_s,
+            solar_day_s,
+            sidereal_angle_at_zero_rad,
+        };
+        let flux = match (spec.star.flux_at_mean_distance_w_m2, spec.star.luminosity_l_sun) {
+            (Some(f), _) => f,
+            (None, Some(l)) => flux_at_distance_w_m2(l * SUN_LUMINOSITY_W, spec.orbit.semi_major_axis_au),
+            (None, None) => unreachable_flux(),
+        };
+        let horizon_refraction_rad = match &spec.atmosphere {
+            None => HORIZON_REFRACTION_EARTH_RAD,
+            Some(a) if !a.refraction => 0.0,
+            // Refraction grows with air density; scaled with surface pressure (common
+            // practice, no source).
+            Some(a) => HORIZON_REFRACTION_EARTH_RAD * a.surface_pressure_kpa / STANDARD_PRESSURE_KPA,
+        };
+        let utc_at_zero_unix_s = match &spec.epoch.utc {
+            Some(text) => Some(
+                parse_utc_unix_s(text).map_err(|r| SpecError::inconsistent("epoch.utc", r))?,
+            ),
+            None => None,
+        };
+        Ok(Planet {
+            spec: spec.clone(),
+            orbit,
+            spin,
+            flux_at_mean_distance_w_m2: flux,
+            semi_major_axis_m: spec.orbit.semi_major_axis_au * AU_M,
+            star_radius_m: spec.star.radius_r_sun * SUN_RADIUS_M,
+            horizon_refraction_rad,
+            utc_at_zero_unix_s,
+        })
+    }
+
+    /// The year (orbital period) in seconds.
+    pub fn year_s(&self) -> f64 {
+        self.orbit.period_s
+    }
+
+    /// The world's day in seconds: the mean solar day, or the sidereal day on a tidally locked
+    /// world.
+    pub fn day_s(&self) -> f64 {
+        self.spin.day_s()
+    }
+
+    /// World time (seconds since time zero) of a fractional count of days since time zero.
+    pub fn time_of_solar_days(&self, days: f64) -> f64 {
+        days * self.day_s()
+    }
+
+    /// Fractional days (of [`Planet::day_s`]) since time zero.
+    pub fn solar_days_since_zero(&self, t_s: f64) -> f64 {
+        t_s / self.day_s()
+    }
+
+    /// World time of a UTC instant, for worlds tied to UTC; `None` otherwise.
+    pub fn time_of_utc(&self, unix_s: f64) -> Option<f64> {
+        self.utc_at_zero_unix_s.map(|zero| unix_s - zero)
+    }
+
+    /// `true` if the star rises in the west (obliquity above 90°).
+    pub fn is_retrograde(&self) -> bool {
+        self.spin.sense == SpinSense::Retrograde
+    }
+
+    /// Number of mean solar days in a year (infinite on a tidally locked world, where it is 0
+    /// days of sunrise; reported as `f64::INFINITY`).
+    pub fn year_in_solar_days(&self) -> f64 {
+        self.orbit.period_s / self.spin.solar_day_s
+    }
+
+    /// Local mean solar time at `t_s` and east longitude `lon_rad`, as a fraction of the day in
+    /// `[0, 1)` (0 is midnight, 0.5 is mean noon).
+    pub fn local_mean_time_fraction(&self, t_s: f64, lon_rad: f64) -> f64 {
+        let instant = self.star_instant(t_s);
+        let h = self.spin.sense.sign() * (instant.sidereal_angle_rad + lon_rad - instant.star_mean_longitude_rad);
+        wrap_tau(h + PI) / TAU
+    }
+
+    /// The continuous local day count at east longitude `lon_rad`: its integer part is the
+    /// local day number (day 0 contains time zero at the prime meridian), its fraction the local
+    /// mean solar time as a fraction of the day.
+    pub fn local_day_count(&self, t_s: f64, lon_rad: f64) -> f64 {
+        let zero_fraction = self.local_mean_time_fraction(0.0, 0.0);
+        t_s / self.day_s() + zero_fraction + self.spin.sense.sign() * lon_rad / TAU
+    }
+
+    /// World time at which local day `day` starts (local mean midnight) at `lon_rad`.
+    pub fn local_day_start_s(&self, day: f64, lon_rad: f64) -> f64 {
+        let zero_fraction = self.local_mean_time_fraction(0.0, 0.0);
+        (day - zero_fraction - self.spin.sense.sign() * lon_rad / TAU) * self.day_s()
+    }
+
+    /// Standard altitude of rise and set for the star's centre, radians: minus the horizon
+    /// refraction and the star's angular radius at the mean distance (Earth: −0.833°).
+    pub fn standard_rise_altitude_rad(&self) -> f64 {
+        -(self.horizon_refraction_rad + (self.star_radius_m / self.semi_major_axis_m).asin())
+    }
+}
+
+fn unreachable_flux() -> f64 {
+    // Validation guarantees one of the two; keep a harmless value rather than panic.
+    crate::constants::SOLAR_CONSTANT_W_M2
+}

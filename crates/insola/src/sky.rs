@@ -1,0 +1,219 @@
+//! Where the star stands: per-instant state and per-place position.
+//!
+//! Conventions: see the crate docs. The hour angle reported here is measured from the local
+//! meridian in the direction the sky turns, so it is negative before transit, positive after
+//! it, and grows with time on forward- and backward-spinning worlds alike (on a forward world it
+//! equals the astronomer's westward hour angle).
+
+use std::f64::consts::PI;
+
+use glam::DVec3;
+
+use crate::angle::{wrap_pi, wrap_tau};
+use crate::error::{QueryError, check_arg};
+use crate::frames::{altitude_azimuth, enu_from_hour_angle, equatorial_from_ecliptic_longitude};
+use crate::insolation;
+use crate::planet::Planet;
+
+/// A place on the planet.
+#[derive(Debug, Clone, Copy, PartialEq, serde::Serialize, serde::Deserialize)]
+pub struct Place {
+    /// Latitude, radians in `[−π/2, π/2]`, positive toward the north pole (the pole on the
+    /// orbit-normal side).
+    pub latitude_rad: f64,
+    /// Longitude, radians, positive east of the prime meridian.
+    pub longitude_rad: f64,
+}
+
+impl Place {
+    /// A place from degrees; latitude must lie in −90…90 and longitude in −360…360.
+    pub fn from_degrees(latitude_deg: f64, longitude_deg: f64) -> Result<Place, QueryError> {
+        check_arg("latitude_deg", latitude_deg, -90.0, 90.0, "-90 to 90")?;
+        check_arg("longitude_deg", longitude_deg, -360.0, 360.0, "-360 to 360")?;
+        Ok(Place { latitude_rad: latitude_deg.to_radians(), longitude_rad: longitude_deg.to_radians() })
+    }
+}
+
+/// Everything about the star at one instant that does not depend on the place.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct StarInstant {
+    /// World time, seconds since time zero.
+    pub t_s: f64,
+    /// Ecliptic longitude of the star, radians `[0, 2π)`.
+    pub ecliptic_longitude_rad: f64,
+    /// Mean longitude of the star (drives mean solar time), radians `[0, 2π)`.
+    pub star_mean_longitude_rad: f64,
+    /// Declination, radians, positive north.
+    pub declination_rad: f64,
+    /// Right ascension, radians `[0, 2π)`, eastward from the northward equinox.
+    pub right_ascension_rad: f64,
+    /// Distance in units of the semi-major axis.
+    pub distance_factor: f64,
+    /// Distance in astronomical units.
+    pub distance_au: f64,
+    /// Rotation angle of the prime meridian from the equinox direction, radians `[0, 2π)`.
+    pub sidereal_angle_rad: f64,
+    /// Equation of time as an angle (apparent minus mean solar hour angle), radians in
+    /// `[−π, π)`.
+    pub equation_of_time_rad: f64,
+    /// Stellar flux on a surface facing the star at the top of the atmosphere, W m⁻².
+    pub toa_flux_w_m2: f64,
+    /// Angular radius of the star's disc, radians.
+    pub angular_radius_rad: f64,
+}
+
+/// The star seen from one place at one instant.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct StarPosition {
+    /// Geometric altitude of the star's centre (no refraction), radians.
+    pub altitude_rad: f64,
+    /// Azimuth, radians clockwise from north, `[0, 2π)`.
+    pub azimuth_rad: f64,
+    /// Hour angle in the sense the sky turns (see module docs), radians `[−π, π)`.
+    pub hour_angle_rad: f64,
+    /// Unit vector toward the star in the local east-north-up frame.
+    pub direction_enu: DVec3,
+    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    pub toa_insolation_w_m2: f64,
+}
+
+impl Planet {
+    /// The place-independent state of the star at world time `t_s` (seconds since zero).
+    pub fn star_instant(&self, t_s: f64) -> StarInstant {
+        let o = self.orbit.state_at(t_s);
+        let (ra, dec) = equatorial_from_ecliptic_longitude(o.star_longitude_rad, self.spin.tilt_rad);
+        let ra = wrap_tau(ra);
+        let eot = wrap_pi(self.spin.sense.sign() * (o.star_mean_longitude_rad - ra));
+        let distance_m = self.semi_major_axis_m * o.distance_factor;
+        StarInstant {
+            t_s,
+            ecliptic_longitude_rad: o.star_longitude_rad,
+            star_mean_longitude_rad: o.star_mean_longitude_rad,
+            declination_rad: dec,
+            right_ascension_rad: ra,
+            distance_factor: o.distance_factor,
+            distance_au: self.spec.orbit.semi_major_axis_au * o.distance_factor,
+            sidereal_angle_rad: self.spin.sidereal_angle_rad(t_s),
+            equation_of_time_rad: eot,
+            toa_flux_w_m2: self.flux_at_mean_distance_w_m2 / (o.distance_factor * o.distance_factor),
+            angular_radius_rad: (self.star_radius_m / distance_m).min(1.0).asin(),
+        }
+    }
+
+    /// The star seen from `place` at a precomputed instant.
+    #[inline]
+    pub fn star_position_at(&self, instant: &StarInstant, place: Place) -> StarPosition {
+        let (sl, cl) = place.latitude_rad.sin_cos();
+        let h_geo = instant.sidereal_angle_rad + place.longitude_rad - instant.right_ascension_rad;
+        let enu = enu_from_hour_angle(sl, cl, instant.declination_rad, h_geo);
+        let (alt, az) = altitude_azimuth(enu);
+        StarPosition {
+            altitude_rad: alt,
+            azimuth_rad: az,
+            hour_angle_rad: wrap_pi(self.spin.sense.sign() * h_geo),
+            direction_enu: enu,
+            toa_insolation_w_m2: instant.toa_flux_w_m2 * enu.z.max(0.0),
+        }
+    }
+
+    /// The star seen from `place` at world time `t_s`.
+    pub fn star_position(&self, t_s: f64, place: Place) -> StarPosition {
+        self.star_position_at(&self.star_instant(t_s), place)
+    }
+
+    /// Equation of time at `t_s` in minutes of the world's clock (apparent minus mean solar
+    /// time; sundial ahead of the clock when positive). Zero on a tidally locked world.
+    pub fn equation_of_time_min(&self, t_s: f64) -> f64 {
+        if self.spin.is_tidally_locked() {
+            return 0.0;
+        }
+        self.star_instant(t_s).equation_of_time_rad / (2.0 * PI) * self.spin.solar_day_s / 60.0
+    }
+
+    /// Daily-mean top-of-atmosphere insolation at `latitude_rad` on the day containing `t_s`,
+    /// W m⁻² (Berger 1978; declination and distance taken at `t_s`).
+    pub fn daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
+        let i = self.star_instant(t_s);
+        insolation::daily_mean_w_m2(self.flux_at_mean_distance_w_m2, latitude_rad, i.declination_rad, i.distance_factor)
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+    use crate::WorldSpec;
+
+    fn world(obliquity: f64, day: &str) -> Planet {
+        let text = format!(
+            r#"(name: "Test", star: (temperature_k: 5772, radius_r_sun: 1, flux_at_mean_distance_w_m2: 1361),
+               orbit: (semi_major_axis_au: 1, eccentricity: 0.05, periapsis_longitude_deg: 30, period_days: 200),
+               spin: (obliquity_deg: {obliquity}, {day}))"#
+        );
+        Planet::new(&WorldSpec::from_ron_str(&text).unwrap()).unwrap()
+    }
+
+    #[test]
+    fn midnight_and_noon_at_the_prime_meridian() {
+        let p = world(20.0, "solar_day_hours: 20");
+        let place = Place::from_degrees(0.0, 0.0).unwrap();
+        // At time zero it is local mean midnight, the star is below the horizon, hour angle ≈ π.
+        let s0 = p.star_position(0.0, place);
+        assert!(s0.altitude_rad < -1.0);
+        assert!((p.local_mean_time_fraction(0.0, 0.0)).abs() < 1e-9);
+        // Half a day later it is mean noon: hour angle equals the equation of time.
+        let t = p.time_of_solar_days(0.5);
+        let s = p.star_position(t, place);
+        let eot = p.star_instant(t).equation_of_time_rad;
+        assert!((s.hour_angle_rad - eot).abs() < 1e-9, "{} {}", s.hour_angle_rad, eot);
+    }
+
+    #[test]
+    fn retrograde_star_rises_in_the_west() {
+        for (obliquity, west) in [(20.0, false), (160.0, true)] {
+            let p = world(obliquity, "solar_day_hours: 20");
+            let place = Place::from_degrees(10.0, 0.0).unwrap();
+            // Morning: a quarter day after midnight.
+            let morning = p.star_position(p.time_of_solar_days(0.25), place);
+            assert!(morning.altitude_rad.abs() < 0.5);
+            assert_eq!(morning.direction_enu.x < 0.0, west, "obliquity {obliquity}");
+        }
+    }
+
+    #[test]
+    fn supplementary_obliquities_share_declination() {
+        let a = world(30.0, "solar_day_hours: 20");
+        let b = world(150.0, "solar_day_hours: 20");
+        for k in 0..50 {
+            let t = k as f64 * 3.3e5;
+            let (ia, ib) = (a.star_instant(t), b.star_instant(t));
+            assert!((ia.declination_rad - ib.declination_rad).abs() < 1e-12);
+        }
+    }
+
+    #[test]
+    fn direction_is_unit_and_poles_are_fine() {
+        let p = world(90.0, "solar_day_hours: 20");
+        for lat in [-90.0, -45.0, 0.0, 60.0, 90.0] {
+            for k in 0..100 {
+                let s = p.star_position(k as f64 * 12345.6, Place::from_degrees(lat, 17.0).unwrap());
+                assert!((s.direction_enu.length() - 1.0).abs() < 1e-12);
+                assert!(s.altitude_rad.is_finite() && s.azimuth_rad.is_finite());
+            }
+        }
+    }
+
+    #[test]
+    fn tidally_locked_star_stays_put_on_a_circular_orbit() {
+        let text = r#"(name: "Lock", star: (temperature_k: 3500, radius_r_sun: 0.3, luminosity_l_sun: 0.01),
+               orbit: (semi_major_axis_au: 0.05, eccentricity: 0, periapsis_longitude_deg: 0, period_days: 10),
+               spin: (obliquity_deg: 0, tidally_locked: true),
+               epoch: (prime_meridian_solar_time_hours: 120))"#;
+        let p = Planet::new(&WorldSpec::from_ron_str(text).unwrap()).unwrap();
+        let place = Place::from_degrees(0.0, 0.0).unwrap();
+        for k in 0..20 {
+            let s = p.star_position(k as f64 * 77_777.0, place);
+            assert!((s.altitude_rad - PI / 2.0).abs() < 1e-6, "{}", s.altitude_rad);
+        }
+        assert_eq!(p.equation_of_time_min(1000.0), 0.0);
+    }
+}
