@@ -42,6 +42,43 @@ pub fn daily_mean_w_m2(s0_w_m2: f64, lat_rad: f64, decl_rad: f64, rho: f64) -> f
     q.max(0.0)
 }
 
+
+/// Annual-mean insolation (time average over one orbit), W m⁻², integrating the daily mean over
+/// `samples` instants evenly spaced in time (midpoint rule; 720 gives better than 0.05 W m⁻²).
+///
+/// Independent of the periapsis longitude; equals the circular-orbit value × (1 − e²)^(−1/2)
+/// (Ward 1974, from memory; verified numerically in the tests).
+pub fn annual_mean_w_m2(s0_w_m2: f64, eccentricity: f64, obliquity_rad: f64, lat_rad: f64, samples: usize) -> f64 {
+    let n = samples.max(1);
+    let tilt = obliquity_rad.min(PI - obliquity_rad);
+    let mut sum = 0.0;
+    for i in 0..n {
+        let m = (i as f64 + 0.5) / n as f64 * 2.0 * PI;
+        let ecc = crate::orbit::solve_kepler(m, eccentricity);
+        let v = crate::orbit::true_anomaly_from_eccentric(ecc, eccentricity);
+        let rho = 1.0 - eccentricity * ecc.cos();
+        let decl = (tilt.sin() * v.sin()).asin();
+        sum += daily_mean_w_m2(s0_w_m2, lat_rad, decl, rho);
+    }
+    sum / n as f64
+}
+
+/// The obliquity (degrees, in 0–90) above which the poles receive more sunlight over a year than
+/// the equator. About 53.9° for any eccentricity; the often quoted "about 54°" (common
+/// practice) is this value rounded.
+pub fn pole_equator_crossover_obliquity_deg() -> f64 {
+    let diff = |eps_deg: f64| {
+        let e = eps_deg.to_radians();
+        annual_mean_w_m2(1.0, 0.0, e, PI / 2.0, 2048) - annual_mean_w_m2(1.0, 0.0, e, 0.0, 2048)
+    };
+    let (mut lo, mut hi) = (30.0, 80.0);
+    for _ in 0..50 {
+        let mid = 0.5 * (lo + hi);
+        if diff(mid) < 0.0 { lo = mid } else { hi = mid }
+    }
+    0.5 * (lo + hi)
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -62,5 +99,79 @@ mod tests {
         // Derived: at the pole h0 = π and Q = S0 sin δ (SCIENCE check "pole daily mean").
         let q = daily_mean_w_m2(1361.0, d(90.0), d(23.44), 1.0);
         assert!((q - 541.4).abs() < 0.1, "{q}");
+    }
+
+    #[test]
+    fn daily_mean_table_earth() {
+        // Berger (1978) daily-mean formula, cross-checked against the climlab implementation
+        // (`coszen_daily_time_weighted`); the table is computed from the formula in double
+        // precision for S0 1361, e 0.016709, periapsis longitude 282.94°, obliquity 23.4393°
+        // (regression values, tolerance 0.5 W m⁻²).
+        let (s0, e, peri, eps) = (1361.0, 0.016709, d(282.94), d(23.4393));
+        let lats = [90.0, 80.0, 66.56, 60.0, 45.0, 30.0, 0.0, -30.0, -60.0, -90.0];
+        let rows = [
+            (0.0, [0.0, 75.8, 173.7, 218.4, 308.8, 378.2, 436.7, 378.2, 218.4, 0.0]),
+            (90.0, [524.2, 516.2, 480.9, 476.8, 483.5, 474.8, 384.8, 212.7, 22.8, 0.0]),
+            (180.0, [0.0, 74.7, 171.1, 215.1, 304.2, 372.6, 430.2, 372.6, 215.1, 0.0]),
+            (270.0, [0.0, 0.0, 0.0, 24.4, 120.4, 227.1, 410.8, 506.8, 508.9, 559.5]),
+        ];
+        for (lam, expected) in rows {
+            let lam = d(lam);
+            let rho = (1.0 - e * e) / (1.0 + e * (lam - peri).cos());
+            let decl = (eps.sin() * lam.sin()).asin();
+            for (lat, want) in lats.iter().zip(expected) {
+                let q = daily_mean_w_m2(s0, d(*lat), decl, rho);
+                assert!((q - want).abs() < 0.5, "lambda {lam} lat {lat}: {q} vs {want}");
+            }
+        }
+    }
+
+    #[test]
+    fn climlab_maximum_daily_insolation() {
+        // climlab `tests/test_insolation.py`: with S0 1365.2 and the Berger & Loutre (1991)
+        // present-day orbit (e 0.017236, periapsis 281.37°, obliquity 23.446°) the largest
+        // daily mean is 562.0333 W m⁻², at the South Pole near the December solstice.
+        let (s0, e, peri, eps) = (1365.2, 0.017236, d(281.37), d(23.446));
+        let mut best: f64 = 0.0;
+        for k in 0..3600 {
+            let lam = d(260.0 + k as f64 * 0.01);
+            let rho = (1.0 - e * e) / (1.0 + e * (lam - peri).cos());
+            let decl = (eps.sin() * lam.sin()).asin();
+            best = best.max(daily_mean_w_m2(s0, d(-90.0), decl, rho));
+        }
+        assert!((best - 562.0333).abs() < 0.02, "{best}");
+    }
+
+    #[test]
+    fn annual_means() {
+        // Computed from the daily-mean formula integrated over time (regression values) and
+        // from the closed forms: pole S0 sin ε /(π √(1−e²)) = 172.35 (derived).
+        let (s0, e, eps) = (1361.0, 0.016709, d(23.4393));
+        for (lat, want) in [(0.0, 415.60), (30.0, 365.21), (45.0, 306.95), (60.0, 236.32), (75.0, 185.60), (90.0, 172.35)] {
+            let q = annual_mean_w_m2(s0, e, eps, d(lat), 1440);
+            assert!((q - want).abs() < 0.3, "lat {lat}: {q}");
+        }
+        let pole = s0 * eps.sin() / (PI * (1.0 - e * e).sqrt());
+        assert!((annual_mean_w_m2(s0, e, eps, d(90.0), 1440) - pole).abs() < 0.05);
+        // Obliquities ε and 180° − ε receive the same sunlight.
+        assert!((annual_mean_w_m2(s0, 0.0, d(60.0), d(20.0), 720) - annual_mean_w_m2(s0, 0.0, d(120.0), d(20.0), 720)).abs() < 1e-9);
+        // Circular orbit, equator/pole against obliquity (computed from the closed forms).
+        for (eps_deg, eq, po) in [(0.0, 433.2, 0.0), (45.0, 372.5, 306.3), (60.0, 334.0, 375.2), (90.0, 275.8, 433.2)] {
+            let qe = annual_mean_w_m2(s0, 0.0, d(eps_deg), 0.0, 2048);
+            let qp = annual_mean_w_m2(s0, 0.0, d(eps_deg), d(90.0), 2048);
+            assert!((qe - eq).abs() < 0.3 && (qp - po).abs() < 0.3, "{eps_deg}: {qe} {qp}");
+        }
+    }
+
+    #[test]
+    fn crossover_obliquity() {
+        // Exact crossover 53.90° for a circular orbit (derived from the closed forms with the
+        // complete elliptic integral: sin ε = (2/π) E(sin ε)); "about 54°" is common practice,
+        // usually credited to Ward 1974 (from memory).
+        let eps = pole_equator_crossover_obliquity_deg();
+        assert!((eps - 53.90).abs() < 0.01, "{eps}");
+        // The truncated Legendre (P2) model puts it where s2 = 0: sin²ε = 2/3 → 54.74°
+        // (Rose, Cronin & Bitz 2017); the exact value must lie below it.
+        assert!(eps < (2.0f64 / 3.0).sqrt().asin().to_degrees());
     }
 }
