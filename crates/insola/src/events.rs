@@ -125,6 +125,41 @@ impl Planet {
     }
 }
 
+/// One passage of the star through an altitude threshold.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct Crossing {
+    /// World time of the crossing, seconds since time zero.
+    pub t_s: f64,
+    /// `true` when the star goes up through the threshold, `false` when it goes down.
+    pub rising: bool,
+}
+
+impl Planet {
+    /// Every crossing of `threshold_rad` by the star's centre in `(t0_s, t1_s]` at `place`, in
+    /// time order. Samples at most every 1/96 of a day, so a long interval (a fast-running
+    /// clock) still yields each sunrise and sunset once; appends to `out` (no allocation when
+    /// `out` has room).
+    pub fn altitude_crossings_into(&self, place: Place, t0_s: f64, t1_s: f64, threshold_rad: f64, out: &mut Vec<Crossing>) {
+        if !(t1_s > t0_s) {
+            return;
+        }
+        let max_step = self.day_s().min(self.year_s()) / 96.0;
+        let n = ((t1_s - t0_s) / max_step).ceil().clamp(1.0, 1.0e7) as usize;
+        let step = (t1_s - t0_s) / n as f64;
+        let f = |t: f64| self.star_position(t, place).altitude_rad - threshold_rad;
+        let mut a = f(t0_s);
+        for i in 0..n {
+            let (ta, tb) = (t0_s + i as f64 * step, if i + 1 == n { t1_s } else { t0_s + (i + 1) as f64 * step });
+            let b = f(tb);
+            if (a >= 0.0) != (b >= 0.0) {
+                let t = bisect(ta, tb, a >= 0.0, &f);
+                out.push(Crossing { t_s: t, rising: b >= 0.0 });
+            }
+            a = b;
+        }
+    }
+}
+
 fn find_crossings(times: &[f64], alts: &[f64], h: f64, alt_at: &dyn Fn(f64) -> f64) -> Crossings {
     let mut rise = None;
     let mut set = None;

@@ -9,6 +9,7 @@ pub mod events;
 pub mod frames;
 pub mod insolation;
 pub mod light;
+pub mod lighting;
 pub mod moons;
 pub mod orbit;
 pub mod seasons;

@@ -17,3 +17,18 @@ impl AtmosphereSpec {
         Ok(())
     }
 }
+
+/// Placeholder twilight phase.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
+pub enum TwilightPhase {
+    /// Star above the standard rise altitude.
+    Day,
+    /// Down to −6°.
+    Civil,
+    /// Down to −12°.
+    Nautical,
+    /// Down to −18°.
+    Astronomical,
+    /// Below −18°.
+    Night,
+}

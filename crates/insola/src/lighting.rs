@@ -1,0 +1,138 @@
+//! One place to ask: the full lighting state for a world, a time and a place.
+//!
+//! [`Planet::lighting`] gathers the star's direction, light and colour, the sky's ambient
+//! light, each moon's direction, phase and light, eclipses and the twilight phase. Two modes:
+//! [`LightMode::Ground`] gives the light as it arrives at the ground (for scenes without a sky
+//! renderer), [`LightMode::TopOfAtmosphere`] the light above the air (for engines whose
+//! atmosphere attenuates the light itself, so extinction is never counted twice).
+
+use glam::DVec3;
+use serde::{Deserialize, Serialize};
+
+use crate::light::TwilightPhase;
+use crate::planet::Planet;
+use crate::sky::Place;
+
+/// Which light to report for the star and moons.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Default, Serialize, Deserialize)]
+pub enum LightMode {
+    /// After the atmosphere's extinction: what a surface on the ground receives.
+    #[default]
+    Ground,
+    /// Above the atmosphere: for renderers that apply their own atmospheric extinction.
+    TopOfAtmosphere,
+}
+
+/// The light of one body (the star or a moon) at the observer.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct BodyLight {
+    /// Unit vector toward the body, local east-north-up frame.
+    pub direction_enu: DVec3,
+    /// Geometric altitude of the body's centre, radians.
+    pub altitude_rad: f64,
+    /// Azimuth clockwise from north, radians.
+    pub azimuth_rad: f64,
+    /// Illuminance on a surface facing the body, lux (0 when below the horizon).
+    pub illuminance_lux: f64,
+    /// Colour of the light, linear sRGB with the largest channel 1.
+    pub color_linear_rgb: [f64; 3],
+    /// Correlated colour temperature of the light, kelvin.
+    pub cct_k: f64,
+    /// Angular radius of the disc, radians.
+    pub angular_radius_rad: f64,
+}
+
+/// Diffuse light of the whole sky dome.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct SkyLight {
+    /// Illuminance on a horizontal surface from the sky (not the star's beam), lux.
+    pub illuminance_lux: f64,
+    /// Colour, linear sRGB with the largest channel 1.
+    pub color_linear_rgb: [f64; 3],
+}
+
+/// One moon as seen from the observer.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct MoonLighting {
+    /// The moon's name from the world file.
+    pub name: String,
+    /// Direction and light of the moon.
+    pub light: BodyLight,
+    /// Phase angle (star–moon–observer), radians: 0 full, π new.
+    pub phase_angle_rad: f64,
+    /// Illuminated fraction of the disc, 0–1.
+    pub illuminated_fraction: f64,
+    /// Fraction of the moon's light removed by the planet's shadow (lunar eclipse), 0–1.
+    pub eclipse_fraction: f64,
+}
+
+/// Everything that lights a scene at one instant and place.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct LightingState {
+    /// World time, seconds since time zero.
+    pub t_s: f64,
+    /// Mode the light values are in.
+    pub mode: LightMode,
+    /// The star.
+    pub star: BodyLight,
+    /// Fraction of the star's disc covered by moons (solar eclipse), 0–1; already applied to
+    /// `star.illuminance_lux`.
+    pub star_eclipse_fraction: f64,
+    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    pub toa_insolation_w_m2: f64,
+    /// Diffuse sky light (always as at the ground: it is the atmosphere's own light).
+    pub sky: SkyLight,
+    /// Each moon, in world-file order.
+    pub moons: Vec<MoonLighting>,
+    /// Day, civil, nautical or astronomical twilight, or night.
+    pub twilight: TwilightPhase,
+}
+
+impl Planet {
+    /// The full lighting state at world time `t_s` and `place`.
+    pub fn lighting(&self, t_s: f64, place: Place, mode: LightMode) -> LightingState {
+        let instant = self.star_instant(t_s);
+        let pos = self.star_position_at(&instant, place);
+        let alt_deg = pos.altitude_rad.to_degrees();
+        let twilight = if pos.altitude_rad >= self.standard_rise_altitude_rad() {
+            TwilightPhase::Day
+        } else if alt_deg >= -6.0 {
+            TwilightPhase::Civil
+        } else if alt_deg >= -12.0 {
+            TwilightPhase::Nautical
+        } else if alt_deg >= -18.0 {
+            TwilightPhase::Astronomical
+        } else {
+            TwilightPhase::Night
+        };
+        // Interim optics until the spectral model lands: 93 lm/W and a clear-sky extinction.
+        let toa_lux = instant.toa_flux_w_m2 * 93.0;
+        let up = pos.direction_enu.z;
+        let lux = if up <= 0.0 {
+            0.0
+        } else {
+            match mode {
+                LightMode::TopOfAtmosphere => toa_lux,
+                LightMode::Ground => toa_lux * (-0.21 / up.max(0.03)).exp(),
+            }
+        };
+        LightingState {
+            t_s,
+            mode,
+            star: BodyLight {
+                direction_enu: pos.direction_enu,
+                altitude_rad: pos.altitude_rad,
+                azimuth_rad: pos.azimuth_rad,
+                illuminance_lux: lux,
+                color_linear_rgb: [1.0, 0.9, 0.8],
+                cct_k: self.spec.star.temperature_k,
+                angular_radius_rad: instant.angular_radius_rad,
+            },
+            star_eclipse_fraction: 0.0,
+            toa_insolation_w_m2: pos.toa_insolation_w_m2,
+            sky: SkyLight { illuminance_lux: 0.1 * lux.max(0.001), color_linear_rgb: [0.6, 0.75, 1.0] },
+            moons: Vec::new(),
+            twilight,
+        }
+    }
+}
