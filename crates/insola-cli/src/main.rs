@@ -1,1 +1,50 @@
-fn main(){}
+//! `insola`: the command-line almanac for invented worlds.
+//!
+//! Every command takes `--json`. Errors go to standard error with exit status 2.
+
+mod commands;
+mod worlds;
+
+use std::process::ExitCode;
+
+use clap::{Parser, Subcommand};
+
+/// Sky, seasons and climate of any planet, from a world file.
+#[derive(Debug, Parser)]
+#[command(name = "insola", version, about, long_about = None)]
+struct Cli {
+    #[command(subcommand)]
+    command: Command,
+}
+
+#[derive(Debug, Subcommand)]
+enum Command {
+    /// Validate a world file and print its derived facts and warnings.
+    Check(commands::check::Args),
+    /// Where the star stands, and its light, at one place and time.
+    Sky(commands::sky::Args),
+    /// Rise, set, transit and twilights of one local day.
+    Day(commands::day::Args),
+    /// One row per day of the year: day length, noon altitude, daily insolation.
+    Year(commands::year::Args),
+    /// List the invented worlds built into this command.
+    Worlds(commands::list::Args),
+}
+
+fn main() -> ExitCode {
+    let cli = Cli::parse();
+    let result = match cli.command {
+        Command::Check(a) => commands::check::run(a),
+        Command::Sky(a) => commands::sky::run(a),
+        Command::Day(a) => commands::day::run(a),
+        Command::Year(a) => commands::year::run(a),
+        Command::Worlds(a) => commands::list::run(a),
+    };
+    match result {
+        Ok(()) => ExitCode::SUCCESS,
+        Err(message) => {
+            eprintln!("insola: {message}");
+            ExitCode::from(2)
+        }
+    }
+}

@@ -1,0 +1,129 @@
+//! `insola day WORLD --lat DEG [--lon DEG] (--day N | --utc YYYY-MM-DD)`: events of a local day.
+
+use insola::events::{Crossings, DayEvents, Polar};
+use insola::{Place, Planet};
+use serde::Serialize;
+
+/// Arguments of `insola day`.
+#[derive(Debug, clap::Args)]
+pub struct Args {
+    /// A `*.world.ron` file or the name of a built-in world.
+    world: String,
+    /// Latitude in degrees, positive north.
+    #[arg(long, allow_hyphen_values = true)]
+    lat: f64,
+    /// Longitude in degrees, positive east.
+    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
+    lon: f64,
+    /// Local day number (day 0 contains time zero).
+    #[arg(long, conflicts_with = "utc", required_unless_present = "utc", allow_hyphen_values = true)]
+    day: Option<i64>,
+    /// A UTC date (YYYY-MM-DD), for worlds tied to UTC: the local mean solar day of that date.
+    #[arg(long)]
+    utc: Option<String>,
+    /// Print JSON instead of text.
+    #[arg(long)]
+    json: bool,
+}
+
+/// Events of a local day, in hours of local mean solar time.
+#[derive(Debug, Serialize)]
+pub struct DayReport {
+    /// Local day number.
+    pub day: i64,
+    /// Length of the local (mean solar) day, hours.
+    pub local_day_h: f64,
+    /// Rise of the star's upper limb (standard altitude), local hours; null if none.
+    pub sunrise_h: Option<f64>,
+    /// Set, local hours; null if none.
+    pub sunset_h: Option<f64>,
+    /// Upper transit, local hours; null if none this day.
+    pub transit_h: Option<f64>,
+    /// Altitude at transit, degrees.
+    pub transit_altitude_deg: Option<f64>,
+    /// Time the star is up during this local day, hours.
+    pub day_length_h: f64,
+    /// "day" (never sets), "night" (never rises) or null.
+    pub polar: Option<Polar>,
+    /// Civil dawn (−6°), local hours.
+    pub civil_dawn_h: Option<f64>,
+    /// Civil dusk, local hours.
+    pub civil_dusk_h: Option<f64>,
+    /// Nautical dawn (−12°), local hours.
+    pub nautical_dawn_h: Option<f64>,
+    /// Nautical dusk, local hours.
+    pub nautical_dusk_h: Option<f64>,
+    /// Astronomical dawn (−18°), local hours.
+    pub astronomical_dawn_h: Option<f64>,
+    /// Astronomical dusk, local hours.
+    pub astronomical_dusk_h: Option<f64>,
+}
+
+/// Builds the report from the core's events.
+pub fn report(day: i64, ev: &DayEvents) -> DayReport {
+    let h = |t: Option<f64>| t.map(|t| ev.local_hours(t));
+    let pair = |c: &Crossings| (h(c.rise_s), h(c.set_s));
+    let (civil_dawn_h, civil_dusk_h) = pair(&ev.civil);
+    let (nautical_dawn_h, nautical_dusk_h) = pair(&ev.nautical);
+    let (astronomical_dawn_h, astronomical_dusk_h) = pair(&ev.astronomical);
+    DayReport {
+        day,
+        local_day_h: ev.day_length_s / 3600.0,
+        sunrise_h: h(ev.sunlight.rise_s),
+        sunset_h: h(ev.sunlight.set_s),
+        transit_h: h(ev.transit_s),
+        transit_altitude_deg: ev.transit_altitude_rad.map(f64::to_degrees),
+        day_length_h: ev.sunlight.time_above_s / 3600.0,
+        polar: ev.sunlight.polar,
+        civil_dawn_h,
+        civil_dusk_h,
+        nautical_dawn_h,
+        nautical_dusk_h,
+        astronomical_dawn_h,
+        astronomical_dusk_h,
+    }
+}
+
+/// The local day number for `--day` or `--utc`.
+pub fn resolve_day(p: &Planet, day: Option<i64>, utc: Option<&str>, lon_deg: f64) -> Result<i64, String> {
+    match (day, utc) {
+        (Some(d), _) => Ok(d),
+        (None, Some(text)) => {
+            let midnight = insola::world::parse_utc_unix_s(text).map_err(|e| format!("--utc {text}: {e}"))?;
+            // Local mean noon of that date at the observer's longitude.
+            let noon = midnight + 43_200.0 - lon_deg / 15.0 * 3600.0;
+            let t = p
+                .time_of_utc(noon)
+                .ok_or_else(|| format!("world `{}` is not tied to UTC (no epoch.utc); use --day", p.spec.name))?;
+            Ok(p.local_day_count(t, lon_deg.to_radians()).floor() as i64)
+        }
+        (None, None) => Err("give --day or --utc".into()),
+    }
+}
+
+/// Runs the command.
+pub fn run(args: Args) -> Result<(), String> {
+    let p = crate::worlds::load(&args.world)?;
+    let lat = super::output::check_lat(args.lat)?;
+    let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
+    let day = resolve_day(&p, args.day, args.utc.as_deref(), args.lon)?;
+    let r = report(day, &p.day_events(day, place));
+    if args.json {
+        return super::output::print_json(&r);
+    }
+    use super::output::hm;
+    println!("{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)", p.spec.name, lat, args.lon, day, r.local_day_h);
+    match r.polar {
+        Some(Polar::Day) => println!("  the star never sets (polar day)"),
+        Some(Polar::Night) => println!("  the star never rises (polar night)"),
+        None => println!("  rise {}   transit {}   set {}", hm(r.sunrise_h), hm(r.transit_h), hm(r.sunset_h)),
+    }
+    if let Some(a) = r.transit_altitude_deg {
+        println!("  transit altitude {a:.2}°");
+    }
+    println!("  star up for {}", hm(Some(r.day_length_h)));
+    println!("  civil twilight        {} – {}", hm(r.civil_dawn_h), hm(r.civil_dusk_h));
+    println!("  nautical twilight     {} – {}", hm(r.nautical_dawn_h), hm(r.nautical_dusk_h));
+    println!("  astronomical twilight {} – {}", hm(r.astronomical_dawn_h), hm(r.astronomical_dusk_h));
+    Ok(())
+}

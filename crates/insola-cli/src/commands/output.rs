@@ -1,0 +1,30 @@
+//! Shared output helpers.
+
+use serde::Serialize;
+
+/// Prints a value as pretty JSON on standard output.
+pub fn print_json<T: Serialize>(value: &T) -> Result<(), String> {
+    let text = serde_json::to_string_pretty(value).map_err(|e| e.to_string())?;
+    println!("{text}");
+    Ok(())
+}
+
+/// Formats hours as `HHhMMm`, or `-` when absent.
+pub fn hm(hours: Option<f64>) -> String {
+    match hours {
+        Some(h) if h.is_finite() => {
+            let total = (h * 60.0).round() as i64;
+            format!("{:02}h{:02}m", total / 60, total % 60)
+        }
+        _ => "-".into(),
+    }
+}
+
+/// Checks a latitude argument in degrees.
+pub fn check_lat(lat: f64) -> Result<f64, String> {
+    if lat.is_finite() && (-90.0..=90.0).contains(&lat) {
+        Ok(lat)
+    } else {
+        Err(format!("--lat {lat} is out of range: allowed -90 to 90"))
+    }
+}

@@ -1,0 +1,99 @@
+//! `insola year WORLD --lat DEG`: one row per local day of the first year.
+
+use insola::{Place, Planet};
+use serde::Serialize;
+
+/// Arguments of `insola year`.
+#[derive(Debug, clap::Args)]
+pub struct Args {
+    /// A `*.world.ron` file or the name of a built-in world.
+    world: String,
+    /// Latitude in degrees, positive north.
+    #[arg(long, allow_hyphen_values = true)]
+    lat: f64,
+    /// Longitude in degrees, positive east.
+    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
+    lon: f64,
+    /// Print JSON instead of text.
+    #[arg(long, conflicts_with = "csv")]
+    json: bool,
+    /// Print CSV instead of text.
+    #[arg(long)]
+    csv: bool,
+}
+
+/// One local day.
+#[derive(Debug, Serialize)]
+pub struct YearRow {
+    /// Local day number.
+    pub day: i64,
+    /// Fraction of the year at the day's start.
+    pub year_fraction: f64,
+    /// Time the star is up, hours.
+    pub day_length_h: f64,
+    /// Altitude at transit (or the highest sampled altitude when there is no transit), degrees.
+    pub noon_altitude_deg: f64,
+    /// Mean top-of-atmosphere insolation over the local day, W m⁻².
+    pub insolation_w_m2: f64,
+}
+
+/// Samples per day for the daily insolation average.
+const INSOLATION_SAMPLES: usize = 96;
+
+/// The rows of the first year (at most 100 000).
+pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
+    let first = p.local_day_count(0.0, place.longitude_rad).floor() as i64;
+    let n = (p.year_s() / p.day_s()).ceil().clamp(1.0, 100_000.0) as i64;
+    (0..n)
+        .map(|k| {
+            let day = first + k;
+            let ev = p.day_events(day, place);
+            let mut sum = 0.0;
+            let mut best = f64::MIN;
+            for i in 0..INSOLATION_SAMPLES {
+                let t = ev.day_start_s + (i as f64 + 0.5) / INSOLATION_SAMPLES as f64 * ev.day_length_s;
+                let s = p.star_position(t, place);
+                sum += s.toa_insolation_w_m2;
+                best = best.max(s.altitude_rad);
+            }
+            YearRow {
+                day,
+                year_fraction: (ev.day_start_s / p.year_s()).rem_euclid(1.0),
+                day_length_h: ev.sunlight.time_above_s / 3600.0,
+                noon_altitude_deg: ev.transit_altitude_rad.unwrap_or(best).to_degrees(),
+                insolation_w_m2: sum / INSOLATION_SAMPLES as f64,
+            }
+        })
+        .collect()
+}
+
+/// Runs the command.
+pub fn run(args: Args) -> Result<(), String> {
+    let p = crate::worlds::load(&args.world)?;
+    let lat = super::output::check_lat(args.lat)?;
+    let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
+    let rows = rows(&p, place);
+    if args.json {
+        return super::output::print_json(&rows);
+    }
+    if args.csv {
+        println!("day,year_fraction,day_length_h,noon_altitude_deg,insolation_w_m2");
+        for r in &rows {
+            println!("{},{:.6},{:.4},{:.4},{:.3}", r.day, r.year_fraction, r.day_length_h, r.noon_altitude_deg, r.insolation_w_m2);
+        }
+        return Ok(());
+    }
+    println!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.lon);
+    println!("{:>6} {:>8} {:>10} {:>12} {:>12}", "day", "year", "daylight", "noon alt °", "insol W/m²");
+    for r in &rows {
+        println!(
+            "{:>6} {:>8.4} {:>10} {:>12.2} {:>12.1}",
+            r.day,
+            r.year_fraction,
+            super::output::hm(Some(r.day_length_h)),
+            r.noon_altitude_deg,
+            r.insolation_w_m2
+        );
+    }
+    Ok(())
+}
