@@ -12,6 +12,8 @@
 
 use std::sync::OnceLock;
 
+use serde::{Deserialize, Serialize};
+
 use super::cie1931::CIE1931_2DEG;
 use super::spectrum::{Spectrum, blackbody_total_exitance};
 
@@ -217,6 +219,50 @@ pub fn cct_from_xy(xy: [f64; 2]) -> f64 {
         }
     }
     (1e6 / best.1).clamp(CCT_MIN_K, CCT_MAX_K)
+}
+
+/// Colour of a light: normalised linear sRGB (max channel 1) and correlated colour temperature.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct LightColour {
+    /// Linear sRGB, negative channels clamped to 0, largest channel 1 (see
+    /// [`normalised_colour`]).
+    pub linear_srgb: [f64; 3],
+    /// Correlated colour temperature, in kelvin (see [`cct_from_xy`]).
+    pub cct_k: f64,
+}
+
+impl LightColour {
+    /// Colour of tristimulus values; `None` for a black spectrum.
+    pub fn from_xyz(xyz: &Xyz) -> Option<Self> {
+        let xy = xyz.chromaticity()?;
+        Some(Self {
+            linear_srgb: normalised_colour(xyz),
+            cct_k: cct_from_xy(xy),
+        })
+    }
+}
+
+/// Colour and ln Y of a spectrum given as natural logarithms of its samples on the spectrum grid
+/// (−∞ allowed for zeros). Working in logarithms keeps the colour of a beam that is dimmed by a
+/// huge optical depth well defined. Returns `None` when every sample is zero or not finite.
+pub fn light_colour_of_ln_spectrum(ln_values: &[f64]) -> Option<(LightColour, f64)> {
+    let top = ln_values
+        .iter()
+        .copied()
+        .filter(|v| !v.is_nan())
+        .fold(f64::NEG_INFINITY, f64::max);
+    if !top.is_finite() {
+        return None;
+    }
+    let mut xyz = Xyz::default();
+    for (v, c) in ln_values.iter().zip(CIE1931_2DEG.iter()) {
+        let s = if v.is_nan() { 0.0 } else { (v - top).exp() };
+        xyz.x += s * c[0];
+        xyz.y += s * c[1];
+        xyz.z += s * c[2];
+    }
+    let colour = LightColour::from_xyz(&xyz)?;
+    Some((colour, top + xyz.y.ln()))
 }
 
 #[cfg(test)]

@@ -10,12 +10,14 @@
 //! * Another world: the Earth curve is multiplied by the star's top-of-atmosphere illuminance
 //!   over E_sc and by [`sky_brightness_scale`], a simple estimate of how much light a column of
 //!   optical depth τ sends down as diffuse light relative to Earth's column.
-//! * Sky colour: light scattered once (Rayleigh + aerosol, τ_s(λ)) and dimmed along a mean path
-//!   of (1 + m)/2 vertical columns: S(λ) = E★(λ) τ_s(λ) exp(−τ(λ)(1 + m)/2). This is a
+//! * Sky colour: light scattered once in a plane-parallel, exponentially stratified atmosphere
+//!   and seen at the zenith, the star at relative air mass m:
+//!   S(λ) = E★(λ) [e^(−τ(λ)) − e^(−τ(λ) m)] / (m − 1) (→ E★ τ e^(−τ) for m → 1), scattering and
+//!   extinction both τ(λ) (non-absorbing aerosol). For a high star this is E★ τ(λ) — blue; for a
+//!   low one every photon is scattered somewhere and the sky tends to E★ e^(−τ(λ)) — paler. A
 //!   documented simple approach, not a radiative-transfer solution: it ignores the phase
 //!   function, multiple scattering, ground reflection and ozone.
 
-use super::airmass::kasten_young_1989;
 use super::atmosphere::AtmosphereSpec;
 use super::extinction::Extinction;
 
@@ -70,33 +72,38 @@ pub fn sky_brightness_scale(atmosphere: &AtmosphereSpec) -> f64 {
 }
 
 /// Relative spectral weight of skylight, ln S(λ) − ln E★(λ), on the spectrum grid, for the star
-/// at relative air mass `air_mass`: ln τ_s(λ) − τ(λ)(1 + m)/2 (see the module notes). Entries are
-/// −∞ where nothing scatters.
+/// at relative air mass `air_mass`: ln{[e^(−τ) − e^(−τ m)]/(m − 1)} (see the module notes).
+/// Entries are −∞ where nothing scatters.
 pub fn ln_sky_weight(extinction: &Extinction, air_mass: f64) -> Vec<f64> {
-    let path = 0.5 * (1.0 + air_mass.max(0.0));
+    let x = air_mass.max(0.0) - 1.0;
     extinction
         .rayleigh()
         .iter()
         .zip(extinction.aerosol())
         .map(|(r, a)| {
             let tau = r + a;
-            if tau > 0.0 {
-                tau.ln() - tau * path
-            } else {
-                f64::NEG_INFINITY
+            if tau <= 0.0 {
+                return f64::NEG_INFINITY;
             }
+            // (1 − e^(−τx))/x, written to stay exact for x near 0.
+            let g = if x.abs() < 1e-12 {
+                tau
+            } else {
+                -(-tau * x).exp_m1() / x
+            };
+            -tau + g.ln()
         })
         .collect()
-}
-
-/// Kasten & Young air mass for an apparent altitude in degrees, held at the horizon below 0.
-pub(crate) fn air_mass_deg(apparent_altitude_deg: f64) -> f64 {
-    kasten_young_1989(90.0 - apparent_altitude_deg.max(0.0))
 }
 
 #[cfg(test)]
 mod tests {
     use super::*;
+    use crate::light::kasten_young_1989;
+
+    fn air_mass_deg(apparent_altitude_deg: f64) -> f64 {
+        kasten_young_1989(90.0 - apparent_altitude_deg.max(0.0))
+    }
 
     #[test]
     fn ies_clear_sky_values() {

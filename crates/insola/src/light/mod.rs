@@ -15,3 +15,7 @@ pub use daylight::*;
 pub use extinction::*;
 pub use spectrum::*;
 pub use twilight::*;
+mod sky_light;
+mod star_light;
+pub use sky_light::*;
+pub use star_light::*;

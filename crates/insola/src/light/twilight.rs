@@ -25,8 +25,9 @@
 //!
 //! Twilight colour: the skylight spectrum of `daylight` with the star on the horizon, weighted
 //! further by (τ_R(λ)/τ_R(550 nm))^n with n rising linearly from 0 at the horizon to
-//! [`TWILIGHT_BLUE_POWER`] at −18°. This documented simple approach stands in for the blueing by
-//! ozone (Chappuis band) and by repeated scattering, which are not modelled.
+//! [`TWILIGHT_BLUE_POWER`] at −12° and held below. This documented simple approach stands in for
+//! the blueing of the twilight sky by ozone (Chappuis band) and by repeated scattering, which are
+//! not modelled.
 
 use serde::{Deserialize, Serialize};
 
@@ -44,8 +45,9 @@ pub const ASTRONOMICAL_TWILIGHT_DEG: f64 = -18.0;
 /// Horizontal illuminance of the moonless clear night sky (airglow + starlight), in lux: the
 /// floor used by USNO Circular 171.
 pub const NIGHT_SKY_FLOOR_LUX: f64 = 5e-4;
-/// Exponent of the extra Rayleigh weighting of the twilight sky at −18° (dimensionless).
-pub const TWILIGHT_BLUE_POWER: f64 = 1.0;
+/// Exponent of the extra Rayleigh weighting of the twilight sky from −12° down
+/// (dimensionless).
+pub const TWILIGHT_BLUE_POWER: f64 = 0.8;
 
 /// Altitude, in degrees, above which the IES clear-sky curve is used as it is.
 pub const DAYLIGHT_JOIN_DEG: f64 = 3.0;
@@ -104,47 +106,75 @@ fn ies_log_slope(h_deg: f64) -> f64 {
     de / (ies_clear_sky_diffuse_lux(h_deg) * std::f64::consts::LN_10)
 }
 
-/// Earth clear-sky horizontal illuminance from the sky alone (no direct beam, no night floor),
-/// in lux, for the star's geometric altitude in degrees and a 127.5 klx star; continuous and
-/// non-decreasing in altitude, positive and finite everywhere (NaN is treated as −90°).
+/// The Earth reference sky curve with its spline slopes worked out once.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct EarthSkyCurve {
+    y: [f64; 5],
+    d: [f64; 5],
+}
+
+impl Default for EarthSkyCurve {
+    fn default() -> Self {
+        Self::new()
+    }
+}
+
+impl EarthSkyCurve {
+    /// Builds the spline through the knots listed in the module notes.
+    pub fn new() -> Self {
+        let y: [f64; 5] = [
+            KNOT_LUX[0].log10(),
+            KNOT_LUX[1].log10(),
+            KNOT_LUX[2].log10(),
+            KNOT_LUX[3].log10(),
+            ies_clear_sky_diffuse_lux(DAYLIGHT_JOIN_DEG).log10(),
+        ];
+        let sec: [f64; 4] =
+            std::array::from_fn(|k| (y[k + 1] - y[k]) / (KNOT_DEG[k + 1] - KNOT_DEG[k]));
+        // Fritsch–Butland slopes: harmonic mean of neighbouring secants (monotone), the secant
+        // at the lower end, the IES slope at the upper end (clamped to 3 × secant so the piece
+        // stays monotone).
+        let mut d = [0.0; 5];
+        d[0] = sec[0];
+        for k in 1..4 {
+            d[k] = 2.0 / (1.0 / sec[k - 1] + 1.0 / sec[k]);
+        }
+        d[4] = ies_log_slope(DAYLIGHT_JOIN_DEG).min(3.0 * sec[3]);
+        Self { y, d }
+    }
+
+    /// Clear-sky horizontal illuminance from the sky alone (no direct beam, no night floor), in
+    /// lux, for the star's geometric altitude in degrees and a 127.5 klx star; continuous and
+    /// non-decreasing in altitude, positive and finite everywhere (NaN is treated as −90°).
+    pub fn lux(&self, geometric_altitude_deg: f64) -> f64 {
+        let h = if geometric_altitude_deg.is_nan() {
+            -90.0
+        } else {
+            geometric_altitude_deg.clamp(-90.0, 90.0)
+        };
+        if h >= DAYLIGHT_JOIN_DEG {
+            return ies_clear_sky_diffuse_lux(h);
+        }
+        let (y, d) = (&self.y, &self.d);
+        if h <= KNOT_DEG[0] {
+            return 10f64.powf(y[0] + d[0] * (h - KNOT_DEG[0]));
+        }
+        let k = (0..4).find(|&k| h <= KNOT_DEG[k + 1]).unwrap_or(3);
+        let w = KNOT_DEG[k + 1] - KNOT_DEG[k];
+        let t = (h - KNOT_DEG[k]) / w;
+        let (t2, t3) = (t * t, t * t * t);
+        let v = (2.0 * t3 - 3.0 * t2 + 1.0) * y[k]
+            + (t3 - 2.0 * t2 + t) * w * d[k]
+            + (-2.0 * t3 + 3.0 * t2) * y[k + 1]
+            + (t3 - t2) * w * d[k + 1];
+        10f64.powf(v)
+    }
+}
+
+/// Earth clear-sky horizontal illuminance from the sky alone, in lux, for the star's geometric
+/// altitude in degrees and a 127.5 klx star; see [`EarthSkyCurve::lux`].
 pub fn earth_clear_sky_lux(geometric_altitude_deg: f64) -> f64 {
-    let h = if geometric_altitude_deg.is_nan() {
-        -90.0
-    } else {
-        geometric_altitude_deg.clamp(-90.0, 90.0)
-    };
-    if h >= DAYLIGHT_JOIN_DEG {
-        return ies_clear_sky_diffuse_lux(h);
-    }
-    let y: [f64; 5] = [
-        KNOT_LUX[0].log10(),
-        KNOT_LUX[1].log10(),
-        KNOT_LUX[2].log10(),
-        KNOT_LUX[3].log10(),
-        ies_clear_sky_diffuse_lux(DAYLIGHT_JOIN_DEG).log10(),
-    ];
-    let sec: [f64; 4] =
-        std::array::from_fn(|k| (y[k + 1] - y[k]) / (KNOT_DEG[k + 1] - KNOT_DEG[k]));
-    // Fritsch–Butland slopes: harmonic mean of neighbouring secants (monotone), secant at the
-    // lower end, the IES slope at the upper end (clamped to 3 × secant for monotonicity).
-    let mut d = [0.0; 5];
-    d[0] = sec[0];
-    for k in 1..4 {
-        d[k] = 2.0 / (1.0 / sec[k - 1] + 1.0 / sec[k]);
-    }
-    d[4] = ies_log_slope(DAYLIGHT_JOIN_DEG).min(3.0 * sec[3]);
-    if h <= KNOT_DEG[0] {
-        return 10f64.powf(y[0] + d[0] * (h - KNOT_DEG[0]));
-    }
-    let k = (0..4).find(|&k| h <= KNOT_DEG[k + 1]).unwrap_or(3);
-    let w = KNOT_DEG[k + 1] - KNOT_DEG[k];
-    let t = (h - KNOT_DEG[k]) / w;
-    let (t2, t3) = (t * t, t * t * t);
-    let v = (2.0 * t3 - 3.0 * t2 + 1.0) * y[k]
-        + (t3 - 2.0 * t2 + t) * w * d[k]
-        + (-2.0 * t3 + 3.0 * t2) * y[k + 1]
-        + (t3 - t2) * w * d[k + 1];
-    10f64.powf(v)
+    EarthSkyCurve::new().lux(geometric_altitude_deg)
 }
 
 #[cfg(test)]
