@@ -31,7 +31,7 @@ pub fn disc_overlap_area(r1: f64, r2: f64, d: f64) -> f64 {
 /// `occulter_radius` whose centre is `separation` from the star's (same unit, e.g. angular
 /// radians). 0 when the star's radius is not positive.
 pub fn covered_fraction(star_radius: f64, occulter_radius: f64, separation: f64) -> f64 {
-    if !(star_radius > 0.0) {
+    if star_radius.is_nan() || star_radius <= 0.0 {
         return 0.0;
     }
     (disc_overlap_area(star_radius, occulter_radius, separation)
@@ -43,7 +43,7 @@ pub fn covered_fraction(star_radius: f64, occulter_radius: f64, separation: f64)
 /// (same unit): asin(R/d); π/2 when the distance is at most the radius; 0 for a non-positive
 /// radius or distance.
 pub fn angular_radius(radius: f64, distance: f64) -> f64 {
-    if !(radius > 0.0) || !(distance > 0.0) {
+    if (radius.is_nan() || radius <= 0.0) || (distance.is_nan() || distance <= 0.0) {
         return 0.0;
     }
     (radius / distance).min(1.0).asin()

@@ -15,7 +15,7 @@ use super::spectrum::{SPECTRUM_LEN, Spectrum, wavelength_nm};
 /// τ = 0.0021520 (1.0455996 − 341.29061 λ⁻² − 0.90230850 λ²)/(1 + 0.0027059889 λ⁻² − 85.968563 λ²).
 /// Meant for 0.25–4 µm; non-positive input gives 0.
 pub fn rayleigh_optical_depth_bodhaine(wavelength_um: f64) -> f64 {
-    if !(wavelength_um > 0.0) {
+    if wavelength_um.is_nan() || wavelength_um <= 0.0 {
         return 0.0;
     }
     let l2 = wavelength_um * wavelength_um;
@@ -28,7 +28,7 @@ pub fn rayleigh_optical_depth_bodhaine(wavelength_um: f64) -> f64 {
 /// Aerosol optical depth by Ångström's law, τ = β λ^(−α), for a wavelength in micrometres
 /// (dimensionless).
 pub fn angstrom_optical_depth(wavelength_um: f64, beta: f64, alpha: f64) -> f64 {
-    if !(wavelength_um > 0.0) {
+    if wavelength_um.is_nan() || wavelength_um <= 0.0 {
         return 0.0;
     }
     (beta * wavelength_um.powf(-alpha)).max(0.0)

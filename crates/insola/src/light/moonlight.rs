@@ -7,10 +7,10 @@
 //!   Φ(α) = [sin α + (π − α) cos α]/π and, for a Lambert sphere, geometric albedo p = (2/3)·A_Bond.
 //!   Real regolith moons are far from Lambertian (the Earth's Moon at quarter phase gives about
 //!   1/11 of full-moon light, Lambert 0.32); use [`earth_moon_magnitude`] for that reference.
-//! * The Earth's Moon (validation reference): V(α) = −12.73 + 0.026|α| + 4 × 10⁻⁹ α⁴ (α in degrees)
-//!   + 5 log₁₀(Δ/384 400 km) (Allen, *Astrophysical Quantities*; Krisciunas & Schaefer 1991,
-//!   PASP 103, 1033, eq. 9), and magnitude → illuminance outside the atmosphere
-//!   E = 10^(−0.4(V + 13.99)) lx (Krisciunas & Schaefer 1991 eq. 8, converted from foot-candles).
+//! * The Earth's Moon (validation reference): V(α) = −12.73 + 0.026|α| + 4 × 10⁻⁹ α⁴, α in
+//!   degrees, plus 5 log₁₀(Δ/384 400 km) (Allen, *Astrophysical Quantities*; Krisciunas &
+//!   Schaefer 1991, PASP 103, 1033, eq. 9); magnitude → illuminance outside the atmosphere
+//!   E = 10^(−0.4(V + 13.99)) lx (Krisciunas & Schaefer 1991 eq. 8, from foot-candles).
 
 /// Mean Earth–Moon distance used by the lunar magnitude law, in metres.
 pub const EARTH_MOON_MEAN_DISTANCE_M: f64 = 384_400e3;
@@ -58,7 +58,9 @@ pub fn moon_illuminance_lux(
     observer_distance: f64,
     phase_angle_rad: f64,
 ) -> f64 {
-    if !(observer_distance > 0.0) || !(moon_radius >= 0.0) {
+    if (observer_distance.is_nan() || observer_distance <= 0.0)
+        || (moon_radius.is_nan() || moon_radius < 0.0)
+    {
         return 0.0;
     }
     let v = star_lux_at_moon.max(0.0)
@@ -123,7 +125,8 @@ mod tests {
     #[test]
     fn phase_law_ratios() {
         // Computed from the two laws (regression), relative to full, tolerance 1e-3.
-        let lambert = [0.881, 0.609, 0.318, 0.109, 0.015];
+        // (Lambert at 90° is exactly 1/π ≈ 0.318.)
+        let lambert = [0.881, 0.609, std::f64::consts::FRAC_1_PI, 0.109, 0.015];
         let allen = [0.486, 0.227, 0.091, 0.026, 0.004];
         let full = magnitude_to_lux(earth_moon_magnitude(0.0, 0.0));
         for (k, a) in [30.0f64, 60.0, 90.0, 120.0, 150.0].into_iter().enumerate() {

@@ -25,7 +25,7 @@ pub fn wavelength_nm(i: usize) -> f64 {
 /// Returns 0 for non-positive or non-finite input, and never overflows (exp of large arguments
 /// gives +∞ and the result 0).
 pub fn planck_spectral_exitance(wavelength_m: f64, temperature_k: f64) -> f64 {
-    if !(wavelength_m > 0.0 && temperature_k > 0.0) || !wavelength_m.is_finite() {
+    if !(wavelength_m > 0.0 && temperature_k > 0.0 && wavelength_m.is_finite()) {
         return 0.0;
     }
     let x = PLANCK_C2_M_K / (wavelength_m * temperature_k);
