@@ -18,6 +18,7 @@ use super::airmass::{HORIZON_AIR_MASS_KY89, apparent_altitude, relative_air_mass
 use super::atmosphere::AtmosphereSpec;
 use super::colour::{LightColour, blackbody_luminous_efficacy, light_colour_of_ln_spectrum};
 use super::extinction::Extinction;
+use super::horizon::{disc_fraction_above_horizon, find_rise_altitude};
 use super::sky_light::{SkyLight, SkyModel};
 use super::spectrum::{SPECTRUM_LEN, planck_spectral_exitance, wavelength_nm};
 use super::twilight::TwilightPhase;
@@ -33,27 +34,6 @@ pub const MAX_STAR_TEMPERATURE_K: f64 = 100_000.0;
 pub const DEFAULT_STAR_ANGULAR_RADIUS_RAD: f64 = 4.65e-3;
 
 const TABLE_LEN: usize = 256;
-
-/// Geometric altitude, in radians, at which a star disc of angular radius `radius_rad` has its
-/// upper limb on the apparent horizon, with Earth's refraction × `refraction_scale` (≈ −0.84°
-/// for the Sun on Earth; −radius without refraction). The refraction is taken at the limb.
-pub fn rise_altitude_rad(refraction_scale: f64, radius_rad: f64) -> f64 {
-    find_rise_altitude(refraction_scale, radius_rad)
-}
-
-fn find_rise_altitude(refraction_scale: f64, radius_rad: f64) -> f64 {
-    // Solve apparent(upper limb) = 0, then step down to the centre.
-    let (mut lo, mut hi) = (-0.2, 0.0f64);
-    for _ in 0..64 {
-        let mid = 0.5 * (lo + hi);
-        if apparent_altitude(mid, refraction_scale) < 0.0 {
-            lo = mid;
-        } else {
-            hi = mid;
-        }
-    }
-    0.5 * (lo + hi) - radius_rad
-}
 
 /// Light of the star's disc: illuminance on a surface facing the star, and its colour.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -234,8 +214,9 @@ impl StarLightModel {
         let (p, q) = (&self.beam[i], &self.beam[i + 1]);
         let v: [f64; 5] = std::array::from_fn(|k| p[k] + t * (q[k] - p[k]));
         let mx = v[1].max(v[2]).max(v[3]).max(f64::MIN_POSITIVE);
-        let lux =
-            self.toa_lux(toa_irradiance_w_m2) * v[0].exp() * self.disc_fraction_above_horizon(a);
+        let lux = self.toa_lux(toa_irradiance_w_m2)
+            * v[0].exp()
+            * disc_fraction_above_horizon(a, self.star_angular_radius_rad);
         BeamLight {
             illuminance_lux: lux,
             colour: LightColour {
@@ -243,17 +224,6 @@ impl StarLightModel {
                 cct_k: v[4],
             },
         }
-    }
-
-    /// Fraction of a uniform disc of the star's angular radius above the horizon when its
-    /// centre is at apparent altitude `a` (radians).
-    fn disc_fraction_above_horizon(&self, a: f64) -> f64 {
-        let r = self.star_angular_radius_rad;
-        if r <= 0.0 {
-            return if a >= 0.0 { 1.0 } else { 0.0 };
-        }
-        let d = (a / r).clamp(-1.0, 1.0);
-        (1.0 - (d.acos() - d * (1.0 - d * d).sqrt()) / std::f64::consts::PI).clamp(0.0, 1.0)
     }
 
     /// Light of the clear sky on a horizontal surface for the star's geometric altitude
