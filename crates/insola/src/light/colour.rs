@@ -201,8 +201,18 @@ pub fn cct_from_xy(xy: [f64; 2]) -> f64 {
     }
     let [u, v] = xy_to_uv1960(xy);
     let pts = locus();
-    let mut best = (f64::INFINITY, pts[0].0);
-    for w in pts.windows(2) {
+    // Coarse pass over every 8th vertex, then the exact segment search around the nearest one.
+    let d2 = |p: &(f64, f64, f64)| (u - p.1).powi(2) + (v - p.2).powi(2);
+    let mut near = 0;
+    for k in (0..pts.len()).step_by(8) {
+        if d2(&pts[k]) < d2(&pts[near]) {
+            near = k;
+        }
+    }
+    let lo = near.saturating_sub(24);
+    let hi = (near + 24).min(pts.len() - 1);
+    let mut best = (f64::INFINITY, pts[near].0);
+    for w in pts[lo..=hi].windows(2) {
         let (m0, u0, v0) = w[0];
         let (m1, u1, v1) = w[1];
         let (du, dv) = (u1 - u0, v1 - v0);
