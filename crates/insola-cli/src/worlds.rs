@@ -5,10 +5,22 @@ use insola::{Planet, WorldSpec};
 /// The invented worlds shipped in `assets/worlds`, built into the binary so that
 /// `insola check verdance` works from anywhere.
 pub const BUILT_IN: &[(&str, &str)] = &[
-    ("verdance", include_str!("../../../assets/worlds/verdance.world.ron")),
-    ("tessaly-reach", include_str!("../../../assets/worlds/tessaly-reach.world.ron")),
-    ("oromar", include_str!("../../../assets/worlds/oromar.world.ron")),
-    ("earth-reference", include_str!("../../../assets/reference-worlds/earth.world.ron")),
+    (
+        "verdance",
+        include_str!("../../../assets/worlds/verdance.world.ron"),
+    ),
+    (
+        "tessaly-reach",
+        include_str!("../../../assets/worlds/tessaly-reach.world.ron"),
+    ),
+    (
+        "oromar",
+        include_str!("../../../assets/worlds/oromar.world.ron"),
+    ),
+    (
+        "earth-reference",
+        include_str!("../../../assets/reference-worlds/earth.world.ron"),
+    ),
 ];
 
 /// Loads and validates a world given as a path or a built-in name.

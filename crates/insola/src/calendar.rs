@@ -23,7 +23,10 @@ pub struct CalendarSpec {
 
 impl Default for CalendarSpec {
     fn default() -> Self {
-        CalendarSpec { first_year: 1, months: Vec::new() }
+        CalendarSpec {
+            first_year: 1,
+            months: Vec::new(),
+        }
     }
 }
 
@@ -40,13 +43,25 @@ pub struct MonthSpec {
 impl CalendarSpec {
     /// Checks the section; `path` is its dotted name in the file.
     pub fn validate(&self, path: &str) -> Result<(), SpecError> {
-        check_range(&format!("{path}.first_year"), self.first_year as f64, -1.0e12, 1.0e12)?;
+        check_range(
+            &format!("{path}.first_year"),
+            self.first_year as f64,
+            -1.0e12,
+            1.0e12,
+        )?;
         for (i, m) in self.months.iter().enumerate() {
             if m.name.trim().is_empty() {
-                return Err(SpecError::inconsistent(format!("{path}.months[{i}].name"), "must not be empty"));
+                return Err(SpecError::inconsistent(
+                    format!("{path}.months[{i}].name"),
+                    "must not be empty",
+                ));
             }
             if m.days == 0 {
-                return Err(SpecError::out_of_range(format!("{path}.months[{i}].days"), 0.0, "1 or more"));
+                return Err(SpecError::out_of_range(
+                    format!("{path}.months[{i}].days"),
+                    0.0,
+                    "1 or more",
+                ));
             }
         }
         Ok(())
@@ -152,11 +167,17 @@ mod tests {
     fn dates_round_trip() {
         let p = planet();
         let d = p.date_at(0.0);
-        assert_eq!((d.year, d.day_of_year, d.month_name.as_deref()), (100, 0, Some("Frostwane")));
+        assert_eq!(
+            (d.year, d.day_of_year, d.month_name.as_deref()),
+            (100, 0, Some("Frostwane"))
+        );
         assert!(d.hour_of_day.abs() < 1e-9);
         let t = p.time_of_date(102, 5, 7.5);
         let d = p.date_at(t);
-        assert_eq!((d.year, d.day_of_year, d.month, d.day_of_month), (102, 5, Some(1), 2));
+        assert_eq!(
+            (d.year, d.day_of_year, d.month, d.day_of_month),
+            (102, 5, Some(1), 2)
+        );
         assert!((d.hour_of_day - 7.5).abs() < 1e-6, "{}", d.hour_of_day);
         assert_eq!(d.clock(), "07:30");
     }

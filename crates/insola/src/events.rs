@@ -85,7 +85,10 @@ impl Planet {
         let n = EVENT_SAMPLES_PER_DAY;
         let step = length_s / n as f64;
         let times: Vec<f64> = (0..=n).map(|i| start_s + i as f64 * step).collect();
-        let alts: Vec<f64> = times.iter().map(|&t| self.star_position(t, place).altitude_rad).collect();
+        let alts: Vec<f64> = times
+            .iter()
+            .map(|&t| self.star_position(t, place).altitude_rad)
+            .collect();
         let alt_at = |t: f64| self.star_position(t, place).altitude_rad;
         let crossings = |h: f64| find_crossings(&times, &alts, h, &alt_at);
         let (transit_s, transit_altitude_rad) = match self.find_transit(&times, place) {
@@ -139,7 +142,14 @@ impl Planet {
     /// time order. Samples at most every 1/96 of a day, so a long interval (a fast-running
     /// clock) still yields each sunrise and sunset once; appends to `out` (no allocation when
     /// `out` has room).
-    pub fn altitude_crossings_into(&self, place: Place, t0_s: f64, t1_s: f64, threshold_rad: f64, out: &mut Vec<Crossing>) {
+    pub fn altitude_crossings_into(
+        &self,
+        place: Place,
+        t0_s: f64,
+        t1_s: f64,
+        threshold_rad: f64,
+        out: &mut Vec<Crossing>,
+    ) {
         if !(t1_s > t0_s) {
             return;
         }
@@ -149,11 +159,21 @@ impl Planet {
         let f = |t: f64| self.star_position(t, place).altitude_rad - threshold_rad;
         let mut a = f(t0_s);
         for i in 0..n {
-            let (ta, tb) = (t0_s + i as f64 * step, if i + 1 == n { t1_s } else { t0_s + (i + 1) as f64 * step });
+            let (ta, tb) = (
+                t0_s + i as f64 * step,
+                if i + 1 == n {
+                    t1_s
+                } else {
+                    t0_s + (i + 1) as f64 * step
+                },
+            );
             let b = f(tb);
             if (a >= 0.0) != (b >= 0.0) {
                 let t = bisect(ta, tb, a >= 0.0, &f);
-                out.push(Crossing { t_s: t, rising: b >= 0.0 });
+                out.push(Crossing {
+                    t_s: t,
+                    rising: b >= 0.0,
+                });
             }
             a = b;
         }
@@ -191,13 +211,22 @@ fn find_crossings(times: &[f64], alts: &[f64], h: f64, alt_at: &dyn Fn(f64) -> f
     } else {
         Some(Polar::Night)
     };
-    Crossings { rise_s: rise, set_s: set, time_above_s: above_s, polar }
+    Crossings {
+        rise_s: rise,
+        set_s: set,
+        time_above_s: above_s,
+        polar,
+    }
 }
 
 fn bisect(mut lo: f64, mut hi: f64, lo_above: bool, f: &dyn Fn(f64) -> f64) -> f64 {
     for _ in 0..50 {
         let mid = 0.5 * (lo + hi);
-        if (f(mid) >= 0.0) == lo_above { lo = mid } else { hi = mid }
+        if (f(mid) >= 0.0) == lo_above {
+            lo = mid
+        } else {
+            hi = mid
+        }
         if hi - lo < 1e-3 {
             break;
         }

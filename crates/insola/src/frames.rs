@@ -47,7 +47,11 @@ pub fn equatorial_unit(ra_rad: f64, dec_rad: f64) -> DVec3 {
 pub fn enu_from_hour_angle(sin_lat: f64, cos_lat: f64, dec_rad: f64, hour_angle_rad: f64) -> DVec3 {
     let (sd, cd) = dec_rad.sin_cos();
     let (sh, ch) = hour_angle_rad.sin_cos();
-    DVec3::new(-cd * sh, cos_lat * sd - sin_lat * cd * ch, sin_lat * sd + cos_lat * cd * ch)
+    DVec3::new(
+        -cd * sh,
+        cos_lat * sd - sin_lat * cd * ch,
+        sin_lat * sd + cos_lat * cd * ch,
+    )
 }
 
 /// Direction in the local ENU frame of a body whose equatorial unit vector is `v`, seen from a
@@ -79,10 +83,15 @@ mod tests {
     fn meeus_25a_right_ascension_and_declination() {
         // Meeus, Astronomical Algorithms, example 25.a: apparent λ = 199.90895°, ε = 23.43999°
         // give α = 198.38083°, δ = −7.78507° (read in the source; also in the R `oce` docs).
-        let (ra, dec) = equatorial_from_ecliptic_longitude(199.90895f64.to_radians(), 23.43999f64.to_radians());
+        let (ra, dec) =
+            equatorial_from_ecliptic_longitude(199.90895f64.to_radians(), 23.43999f64.to_radians());
         let ra = crate::angle::wrap_tau(ra).to_degrees();
         assert!((ra - 198.38083).abs() < 1e-4, "{ra}");
-        assert!((dec.to_degrees() - (-7.78507)).abs() < 1e-4, "{}", dec.to_degrees());
+        assert!(
+            (dec.to_degrees() - (-7.78507)).abs() < 1e-4,
+            "{}",
+            dec.to_degrees()
+        );
     }
 
     #[test]

@@ -9,7 +9,13 @@ use std::f64::consts::PI;
 /// Instantaneous insolation on a horizontal surface, W m⁻².
 ///
 /// `Q = (S0/ρ²) max(0, sin φ sin δ + cos φ cos δ cos H)`, `H` the hour angle in radians.
-pub fn instantaneous_w_m2(s0_w_m2: f64, lat_rad: f64, decl_rad: f64, hour_angle_rad: f64, rho: f64) -> f64 {
+pub fn instantaneous_w_m2(
+    s0_w_m2: f64,
+    lat_rad: f64,
+    decl_rad: f64,
+    hour_angle_rad: f64,
+    rho: f64,
+) -> f64 {
     let mu = lat_rad.sin() * decl_rad.sin() + lat_rad.cos() * decl_rad.cos() * hour_angle_rad.cos();
     s0_w_m2 / (rho * rho) * mu.max(0.0)
 }
@@ -42,13 +48,18 @@ pub fn daily_mean_w_m2(s0_w_m2: f64, lat_rad: f64, decl_rad: f64, rho: f64) -> f
     q.max(0.0)
 }
 
-
 /// Annual-mean insolation (time average over one orbit), W m⁻², integrating the daily mean over
 /// `samples` instants evenly spaced in time (midpoint rule; 720 gives better than 0.05 W m⁻²).
 ///
 /// Independent of the periapsis longitude; equals the circular-orbit value × (1 − e²)^(−1/2)
 /// (Ward 1974, from memory; verified numerically in the tests).
-pub fn annual_mean_w_m2(s0_w_m2: f64, eccentricity: f64, obliquity_rad: f64, lat_rad: f64, samples: usize) -> f64 {
+pub fn annual_mean_w_m2(
+    s0_w_m2: f64,
+    eccentricity: f64,
+    obliquity_rad: f64,
+    lat_rad: f64,
+    samples: usize,
+) -> f64 {
     let n = samples.max(1);
     let tilt = obliquity_rad.min(PI - obliquity_rad);
     let mut sum = 0.0;
@@ -108,12 +119,34 @@ mod tests {
         // precision for S0 1361, e 0.016709, periapsis longitude 282.94°, obliquity 23.4393°
         // (regression values, tolerance 0.5 W m⁻²).
         let (s0, e, peri, eps) = (1361.0, 0.016709, d(282.94), d(23.4393));
-        let lats = [90.0, 80.0, 66.56, 60.0, 45.0, 30.0, 0.0, -30.0, -60.0, -90.0];
+        let lats = [
+            90.0, 80.0, 66.56, 60.0, 45.0, 30.0, 0.0, -30.0, -60.0, -90.0,
+        ];
         let rows = [
-            (0.0, [0.0, 75.8, 173.7, 218.4, 308.8, 378.2, 436.7, 378.2, 218.4, 0.0]),
-            (90.0, [524.2, 516.2, 480.9, 476.8, 483.5, 474.8, 384.8, 212.7, 22.8, 0.0]),
-            (180.0, [0.0, 74.7, 171.1, 215.1, 304.2, 372.6, 430.2, 372.6, 215.1, 0.0]),
-            (270.0, [0.0, 0.0, 0.0, 24.4, 120.4, 227.1, 410.8, 506.8, 508.9, 559.5]),
+            (
+                0.0,
+                [
+                    0.0, 75.8, 173.7, 218.4, 308.8, 378.2, 436.7, 378.2, 218.4, 0.0,
+                ],
+            ),
+            (
+                90.0,
+                [
+                    524.2, 516.2, 480.9, 476.8, 483.5, 474.8, 384.8, 212.7, 22.8, 0.0,
+                ],
+            ),
+            (
+                180.0,
+                [
+                    0.0, 74.7, 171.1, 215.1, 304.2, 372.6, 430.2, 372.6, 215.1, 0.0,
+                ],
+            ),
+            (
+                270.0,
+                [
+                    0.0, 0.0, 0.0, 24.4, 120.4, 227.1, 410.8, 506.8, 508.9, 559.5,
+                ],
+            ),
         ];
         for (lam, expected) in rows {
             let lam = d(lam);
@@ -121,7 +154,10 @@ mod tests {
             let decl = (eps.sin() * lam.sin()).asin();
             for (lat, want) in lats.iter().zip(expected) {
                 let q = daily_mean_w_m2(s0, d(*lat), decl, rho);
-                assert!((q - want).abs() < 0.5, "lambda {lam} lat {lat}: {q} vs {want}");
+                assert!(
+                    (q - want).abs() < 0.5,
+                    "lambda {lam} lat {lat}: {q} vs {want}"
+                );
             }
         }
     }
@@ -147,19 +183,39 @@ mod tests {
         // Computed from the daily-mean formula integrated over time (regression values) and
         // from the closed forms: pole S0 sin ε /(π √(1−e²)) = 172.35 (derived).
         let (s0, e, eps) = (1361.0, 0.016709, d(23.4393));
-        for (lat, want) in [(0.0, 415.60), (30.0, 365.21), (45.0, 306.95), (60.0, 236.32), (75.0, 185.60), (90.0, 172.35)] {
+        for (lat, want) in [
+            (0.0, 415.60),
+            (30.0, 365.21),
+            (45.0, 306.95),
+            (60.0, 236.32),
+            (75.0, 185.60),
+            (90.0, 172.35),
+        ] {
             let q = annual_mean_w_m2(s0, e, eps, d(lat), 1440);
             assert!((q - want).abs() < 0.3, "lat {lat}: {q}");
         }
         let pole = s0 * eps.sin() / (PI * (1.0 - e * e).sqrt());
         assert!((annual_mean_w_m2(s0, e, eps, d(90.0), 1440) - pole).abs() < 0.05);
         // Obliquities ε and 180° − ε receive the same sunlight.
-        assert!((annual_mean_w_m2(s0, 0.0, d(60.0), d(20.0), 720) - annual_mean_w_m2(s0, 0.0, d(120.0), d(20.0), 720)).abs() < 1e-9);
+        assert!(
+            (annual_mean_w_m2(s0, 0.0, d(60.0), d(20.0), 720)
+                - annual_mean_w_m2(s0, 0.0, d(120.0), d(20.0), 720))
+            .abs()
+                < 1e-9
+        );
         // Circular orbit, equator/pole against obliquity (computed from the closed forms).
-        for (eps_deg, eq, po) in [(0.0, 433.2, 0.0), (45.0, 372.5, 306.3), (60.0, 334.0, 375.2), (90.0, 275.8, 433.2)] {
+        for (eps_deg, eq, po) in [
+            (0.0, 433.2, 0.0),
+            (45.0, 372.5, 306.3),
+            (60.0, 334.0, 375.2),
+            (90.0, 275.8, 433.2),
+        ] {
             let qe = annual_mean_w_m2(s0, 0.0, d(eps_deg), 0.0, 2048);
             let qp = annual_mean_w_m2(s0, 0.0, d(eps_deg), d(90.0), 2048);
-            assert!((qe - eq).abs() < 0.3 && (qp - po).abs() < 0.3, "{eps_deg}: {qe} {qp}");
+            assert!(
+                (qe - eq).abs() < 0.3 && (qp - po).abs() < 0.3,
+                "{eps_deg}: {qe} {qp}"
+            );
         }
     }
 

@@ -90,32 +90,30 @@ pub struct LightingState {
 
 impl Planet {
     /// The full lighting state at world time `t_s` and `place`.
+    ///
+    /// Star: Planck spectrum through the world's atmosphere (see [`crate::light`]); in
+    /// [`LightMode::TopOfAtmosphere`] the star keeps its full top-of-atmosphere light and colour
+    /// while above the horizon. Sky: the clear-sky and twilight model plus the night floor.
     pub fn lighting(&self, t_s: f64, place: Place, mode: LightMode) -> LightingState {
         let instant = self.star_instant(t_s);
         let pos = self.star_position_at(&instant, place);
-        let alt_deg = pos.altitude_rad.to_degrees();
-        let twilight = if pos.altitude_rad >= self.standard_rise_altitude_rad() {
-            TwilightPhase::Day
-        } else if alt_deg >= -6.0 {
-            TwilightPhase::Civil
-        } else if alt_deg >= -12.0 {
-            TwilightPhase::Nautical
-        } else if alt_deg >= -18.0 {
-            TwilightPhase::Astronomical
-        } else {
-            TwilightPhase::Night
-        };
-        // Interim optics until the spectral model lands: 93 lm/W and a clear-sky extinction.
-        let toa_lux = instant.toa_flux_w_m2 * 93.0;
-        let up = pos.direction_enu.z;
-        let lux = if up <= 0.0 {
-            0.0
-        } else {
-            match mode {
-                LightMode::TopOfAtmosphere => toa_lux,
-                LightMode::Ground => toa_lux * (-0.21 / up.max(0.03)).exp(),
+        let model = self.light_model();
+        let eclipse = self.star_eclipse_fraction(&instant, place);
+        let beam = match mode {
+            LightMode::Ground => model.direct_beam(pos.altitude_rad, instant.toa_flux_w_m2),
+            LightMode::TopOfAtmosphere => {
+                let mut b = model.top_of_atmosphere(instant.toa_flux_w_m2);
+                // Above the air the star is simply up or down; fade across its own disc so the
+                // light does not switch off in one frame.
+                b.illuminance_lux *= crate::light::disc_fraction_above_horizon(
+                    pos.altitude_rad,
+                    instant.angular_radius_rad,
+                );
+                b
             }
         };
+        let sky = model.sky(pos.altitude_rad, instant.toa_flux_w_m2 * (1.0 - eclipse));
+        let moons = self.moon_lighting(&instant, place, mode);
         LightingState {
             t_s,
             mode,
@@ -123,16 +121,22 @@ impl Planet {
                 direction_enu: pos.direction_enu,
                 altitude_rad: pos.altitude_rad,
                 azimuth_rad: pos.azimuth_rad,
-                illuminance_lux: lux,
-                color_linear_rgb: [1.0, 0.9, 0.8],
-                cct_k: self.spec.star.temperature_k,
+                illuminance_lux: beam.illuminance_lux * (1.0 - eclipse),
+                color_linear_rgb: beam.colour.linear_srgb,
+                cct_k: beam.colour.cct_k,
                 angular_radius_rad: instant.angular_radius_rad,
             },
-            star_eclipse_fraction: 0.0,
-            toa_insolation_w_m2: pos.toa_insolation_w_m2,
-            sky: SkyLight { illuminance_lux: 0.1 * lux.max(0.001), color_linear_rgb: [0.6, 0.75, 1.0] },
-            moons: Vec::new(),
-            twilight,
+            star_eclipse_fraction: eclipse,
+            toa_insolation_w_m2: pos.toa_insolation_w_m2 * (1.0 - eclipse),
+            sky: SkyLight {
+                illuminance_lux: sky.total_lux(),
+                color_linear_rgb: sky.colour.linear_srgb,
+            },
+            moons,
+            twilight: TwilightPhase::from_altitude(
+                pos.altitude_rad,
+                self.standard_rise_altitude_rad(),
+            ),
         }
     }
 }

@@ -154,7 +154,10 @@ impl Orbit {
     /// The first time at or after `after_s` when the star reaches ecliptic longitude
     /// `longitude_rad`. Exact (inverts Kepler's equation), no search.
     pub fn time_of_star_longitude(&self, longitude_rad: f64, after_s: f64) -> f64 {
-        let m = mean_anomaly_from_true(longitude_rad - self.periapsis_longitude_rad, self.eccentricity);
+        let m = mean_anomaly_from_true(
+            longitude_rad - self.periapsis_longitude_rad,
+            self.eccentricity,
+        );
         let dm = wrap_tau(m - self.mean_anomaly_at_zero_rad);
         let first = dm / TAU * self.period_s;
         let orbits = ((after_s - first) / self.period_s).ceil().max(0.0);
@@ -179,9 +182,17 @@ mod tests {
         // Meeus, Astronomical Algorithms 2nd ed., example 30.a: e = 0.1, M = 5° → E = 5.554589°,
         // v = 6.139762° (E read in the source; v also in public test suites of PyMeeus).
         let e = solve_kepler(deg(5.0), 0.1);
-        assert!((e.to_degrees() - 5.554589).abs() < 1e-6, "{}", e.to_degrees());
+        assert!(
+            (e.to_degrees() - 5.554589).abs() < 1e-6,
+            "{}",
+            e.to_degrees()
+        );
         let v = true_anomaly_from_eccentric(e, 0.1);
-        assert!((v.to_degrees() - 6.139762).abs() < 1e-6, "{}", v.to_degrees());
+        assert!(
+            (v.to_degrees() - 6.139762).abs() < 1e-6,
+            "{}",
+            v.to_degrees()
+        );
     }
 
     #[test]

@@ -4,13 +4,16 @@ use std::f64::consts::{PI, TAU};
 
 use crate::angle::wrap_tau;
 use crate::constants::{
-    AU_M, HORIZON_REFRACTION_EARTH_RAD, SECONDS_PER_DAY, SECONDS_PER_HOUR, STANDARD_PRESSURE_KPA,
-    SUN_LUMINOSITY_W, SUN_RADIUS_M, flux_at_distance_w_m2,
+    AU_M, HORIZON_REFRACTION_EARTH_RAD, SECONDS_PER_DAY, SECONDS_PER_HOUR, SUN_LUMINOSITY_W,
+    SUN_RADIUS_M, flux_at_distance_w_m2,
 };
 use crate::error::SpecError;
+use crate::light::{AtmosphereSpec, StarLightModel};
+use crate::moons::{BodySpec, MoonOrbit};
 use crate::orbit::Orbit;
 use crate::spin::{Spin, SpinSense, sidereal_from_solar_day, solar_from_sidereal_day};
 use crate::world::{WorldSpec, parse_utc_unix_s};
+use std::sync::OnceLock;
 
 /// A world ready for sky queries: orbit, spin and star, with every derived constant computed.
 ///
@@ -31,7 +34,7 @@ use crate::world::{WorldSpec, parse_utc_unix_s};
 /// let star = planet.star_position(noon, Place::from_degrees(0.0, 0.0).unwrap());
 /// assert!(star.altitude_rad.to_degrees() > 60.0);
 /// ```
-#[derive(Debug, Clone, PartialEq)]
+#[derive(Debug, Clone)]
 pub struct Planet {
     /// The world description this planet was built from.
     pub spec: WorldSpec,
@@ -49,6 +52,14 @@ pub struct Planet {
     pub horizon_refraction_rad: f64,
     /// Seconds since the Unix epoch of time zero, for reference worlds tied to UTC.
     pub utc_at_zero_unix_s: Option<f64>,
+    /// The atmosphere in effect (the world's, or the Earth-like default).
+    pub atmosphere: AtmosphereSpec,
+    /// The planet's size and mass (the world's, or Earth-like defaults).
+    pub body: BodySpec,
+    /// Precomputed moon orbits, in world-file order.
+    pub(crate) moon_orbits: Vec<MoonOrbit>,
+    /// Spectral light model, built on first use (it takes milliseconds).
+    light_model: OnceLock<StarLightModel>,
 }
 
 impl Planet {
@@ -75,13 +86,18 @@ impl Planet {
             spec.epoch.star_longitude_deg.to_radians(),
         );
         let mean_longitude_0 = orbit.state_at(0.0).star_mean_longitude_rad;
-        let day_s = if solar_day_s.is_finite() { solar_day_s } else { sidereal_day_s };
+        let day_s = if solar_day_s.is_finite() {
+            solar_day_s
+        } else {
+            sidereal_day_s
+        };
         let sidereal_angle_at_zero_rad = match spec.epoch.sidereal_angle_deg {
             Some(a) => wrap_tau(a.to_radians()),
             None => {
                 // Mean solar hour angle at the prime meridian, in the sense the sky turns:
                 // H = s (θ − L) = 2π T0/P_day − π (T0 = 0 is midnight).
-                let h = TAU * spec.epoch.prime_meridian_solar_time_hours * SECONDS_PER_HOUR / day_s - PI;
+                let h = TAU * spec.epoch.prime_meridian_solar_time_hours * SECONDS_PER_HOUR / day_s
+                    - PI;
                 wrap_tau(mean_longitude_0 + sense.sign() * h)
             }
         };
@@ -93,22 +109,24 @@ impl Planet {
             solar_day_s,
             sidereal_angle_at_zero_rad,
         };
-        let flux = match (spec.star.flux_at_mean_distance_w_m2, spec.star.luminosity_l_sun) {
+        let flux = match (
+            spec.star.flux_at_mean_distance_w_m2,
+            spec.star.luminosity_l_sun,
+        ) {
             (Some(f), _) => f,
-            (None, Some(l)) => flux_at_distance_w_m2(l * SUN_LUMINOSITY_W, spec.orbit.semi_major_axis_au),
+            (None, Some(l)) => {
+                flux_at_distance_w_m2(l * SUN_LUMINOSITY_W, spec.orbit.semi_major_axis_au)
+            }
             (None, None) => unreachable_flux(),
         };
-        let horizon_refraction_rad = match &spec.atmosphere {
-            None => HORIZON_REFRACTION_EARTH_RAD,
-            Some(a) if !a.refraction => 0.0,
-            // Refraction grows with air density; scaled with surface pressure (common
-            // practice, no source).
-            Some(a) => HORIZON_REFRACTION_EARTH_RAD * a.surface_pressure_kpa / STANDARD_PRESSURE_KPA,
-        };
+        let atmosphere = spec.atmosphere.unwrap_or_default();
+        // Earth's 34′ at the horizon, scaled with the air's density and refractivity (see
+        // `AtmosphereSpec::refraction_scale`).
+        let horizon_refraction_rad = HORIZON_REFRACTION_EARTH_RAD * atmosphere.refraction_scale();
         let utc_at_zero_unix_s = match &spec.epoch.utc {
-            Some(text) => Some(
-                parse_utc_unix_s(text).map_err(|r| SpecError::inconsistent("epoch.utc", r))?,
-            ),
+            Some(text) => {
+                Some(parse_utc_unix_s(text).map_err(|r| SpecError::inconsistent("epoch.utc", r))?)
+            }
             None => None,
         };
         Ok(Planet {
@@ -120,6 +138,35 @@ impl Planet {
             star_radius_m: spec.star.radius_r_sun * SUN_RADIUS_M,
             horizon_refraction_rad,
             utc_at_zero_unix_s,
+            atmosphere,
+            body: spec.body.unwrap_or_default(),
+            moon_orbits: spec
+                .moons
+                .iter()
+                .enumerate()
+                .map(|(i, m)| MoonOrbit::new(i, m, spec.epoch.star_longitude_deg.to_radians()))
+                .collect(),
+            light_model: OnceLock::new(),
+        })
+    }
+
+    /// The spectral light model of this star and atmosphere (built on first call).
+    pub fn light_model(&self) -> &StarLightModel {
+        self.light_model.get_or_init(|| {
+            let radius = (self.star_radius_m / self.semi_major_axis_m)
+                .min(0.5)
+                .asin();
+            // Validation keeps the temperature inside the model's range; should it ever fail,
+            // fall back to the star's temperature clamped into range rather than panic.
+            StarLightModel::new(self.spec.star.temperature_k, &self.atmosphere)
+                .and_then(|m| m.with_star_angular_radius(radius))
+                .or_else(|_| {
+                    StarLightModel::new(
+                        self.spec.star.temperature_k.clamp(1000.0, 40_000.0),
+                        &AtmosphereSpec::default(),
+                    )
+                })
+                .unwrap_or_else(|_| fallback_light_model())
         })
     }
 
@@ -164,7 +211,8 @@ impl Planet {
     /// `[0, 1)` (0 is midnight, 0.5 is mean noon).
     pub fn local_mean_time_fraction(&self, t_s: f64, lon_rad: f64) -> f64 {
         let instant = self.star_instant(t_s);
-        let h = self.spin.sense.sign() * (instant.sidereal_angle_rad + lon_rad - instant.star_mean_longitude_rad);
+        let h = self.spin.sense.sign()
+            * (instant.sidereal_angle_rad + lon_rad - instant.star_mean_longitude_rad);
         wrap_tau(h + PI) / TAU
     }
 
@@ -186,6 +234,17 @@ impl Planet {
     /// refraction and the star's angular radius at the mean distance (Earth: −0.833°).
     pub fn standard_rise_altitude_rad(&self) -> f64 {
         -(self.horizon_refraction_rad + (self.star_radius_m / self.semi_major_axis_m).asin())
+    }
+}
+
+fn fallback_light_model() -> StarLightModel {
+    // A Sun-like star in the default air is always within range.
+    match StarLightModel::new(
+        crate::constants::SUN_TEMPERATURE_K,
+        &AtmosphereSpec::default(),
+    ) {
+        Ok(m) => m,
+        Err(_) => unreachable!("the default light model is valid"),
     }
 }
 

@@ -68,12 +68,21 @@ impl Planet {
         let year = self.year_s();
         let span = |a: f64, b: f64| (b - a).rem_euclid(year);
         let (e0, s1, e2, s3) = (t(0.0), t(1.0), t(2.0), t(3.0));
-        SeasonLengths { spring_s: span(e0, s1), summer_s: span(s1, e2), autumn_s: span(e2, s3), winter_s: span(s3, e0) }
+        SeasonLengths {
+            spring_s: span(e0, s1),
+            summer_s: span(s1, e2),
+            autumn_s: span(e2, s3),
+            winter_s: span(s3, e0),
+        }
     }
 
     /// Latitudes of the tropics and polar circles.
     pub fn zone_latitudes(&self) -> ZoneLatitudes {
         let tilt = self.spin.tilt_rad.to_degrees();
-        ZoneLatitudes { tropic_lat_deg: tilt, polar_circle_lat_deg: 90.0 - tilt, overlapping: tilt > 45.0 }
+        ZoneLatitudes {
+            tropic_lat_deg: tilt,
+            polar_circle_lat_deg: 90.0 - tilt,
+            overlapping: tilt > 45.0,
+        }
     }
 }

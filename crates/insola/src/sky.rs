@@ -30,7 +30,10 @@ impl Place {
     pub fn from_degrees(latitude_deg: f64, longitude_deg: f64) -> Result<Place, QueryError> {
         check_arg("latitude_deg", latitude_deg, -90.0, 90.0, "-90 to 90")?;
         check_arg("longitude_deg", longitude_deg, -360.0, 360.0, "-360 to 360")?;
-        Ok(Place { latitude_rad: latitude_deg.to_radians(), longitude_rad: longitude_deg.to_radians() })
+        Ok(Place {
+            latitude_rad: latitude_deg.to_radians(),
+            longitude_rad: longitude_deg.to_radians(),
+        })
     }
 }
 
@@ -81,7 +84,8 @@ impl Planet {
     /// The place-independent state of the star at world time `t_s` (seconds since zero).
     pub fn star_instant(&self, t_s: f64) -> StarInstant {
         let o = self.orbit.state_at(t_s);
-        let (ra, dec) = equatorial_from_ecliptic_longitude(o.star_longitude_rad, self.spin.tilt_rad);
+        let (ra, dec) =
+            equatorial_from_ecliptic_longitude(o.star_longitude_rad, self.spin.tilt_rad);
         let ra = wrap_tau(ra);
         let eot = wrap_pi(self.spin.sense.sign() * (o.star_mean_longitude_rad - ra));
         let distance_m = self.semi_major_axis_m * o.distance_factor;
@@ -95,7 +99,8 @@ impl Planet {
             distance_au: self.spec.orbit.semi_major_axis_au * o.distance_factor,
             sidereal_angle_rad: self.spin.sidereal_angle_rad(t_s),
             equation_of_time_rad: eot,
-            toa_flux_w_m2: self.flux_at_mean_distance_w_m2 / (o.distance_factor * o.distance_factor),
+            toa_flux_w_m2: self.flux_at_mean_distance_w_m2
+                / (o.distance_factor * o.distance_factor),
             angular_radius_rad: (self.star_radius_m / distance_m).min(1.0).asin(),
         }
     }
@@ -134,7 +139,12 @@ impl Planet {
     /// W m⁻² (Berger 1978; declination and distance taken at `t_s`).
     pub fn daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
         let i = self.star_instant(t_s);
-        insolation::daily_mean_w_m2(self.flux_at_mean_distance_w_m2, latitude_rad, i.declination_rad, i.distance_factor)
+        insolation::daily_mean_w_m2(
+            self.flux_at_mean_distance_w_m2,
+            latitude_rad,
+            i.declination_rad,
+            i.distance_factor,
+        )
     }
 }
 
@@ -164,7 +174,12 @@ mod tests {
         let t = p.time_of_solar_days(0.5);
         let s = p.star_position(t, place);
         let eot = p.star_instant(t).equation_of_time_rad;
-        assert!((s.hour_angle_rad - eot).abs() < 1e-9, "{} {}", s.hour_angle_rad, eot);
+        assert!(
+            (s.hour_angle_rad - eot).abs() < 1e-9,
+            "{} {}",
+            s.hour_angle_rad,
+            eot
+        );
     }
 
     #[test]
@@ -195,7 +210,8 @@ mod tests {
         let p = world(90.0, "solar_day_hours: 20");
         for lat in [-90.0, -45.0, 0.0, 60.0, 90.0] {
             for k in 0..100 {
-                let s = p.star_position(k as f64 * 12345.6, Place::from_degrees(lat, 17.0).unwrap());
+                let s =
+                    p.star_position(k as f64 * 12345.6, Place::from_degrees(lat, 17.0).unwrap());
                 assert!((s.direction_enu.length() - 1.0).abs() < 1e-12);
                 assert!(s.altitude_rad.is_finite() && s.azimuth_rad.is_finite());
             }
@@ -212,7 +228,11 @@ mod tests {
         let place = Place::from_degrees(0.0, 0.0).unwrap();
         for k in 0..20 {
             let s = p.star_position(k as f64 * 77_777.0, place);
-            assert!((s.altitude_rad - PI / 2.0).abs() < 1e-6, "{}", s.altitude_rad);
+            assert!(
+                (s.altitude_rad - PI / 2.0).abs() < 1e-6,
+                "{}",
+                s.altitude_rad
+            );
         }
         assert_eq!(p.equation_of_time_min(1000.0), 0.0);
     }

@@ -23,7 +23,11 @@ pub enum SpinSense {
 impl SpinSense {
     /// From the obliquity in degrees.
     pub fn from_obliquity_deg(obliquity_deg: f64) -> Self {
-        if obliquity_deg > 90.0 { SpinSense::Retrograde } else { SpinSense::Prograde }
+        if obliquity_deg > 90.0 {
+            SpinSense::Retrograde
+        } else {
+            SpinSense::Prograde
+        }
     }
 
     /// `+1` for prograde, `−1` for retrograde.
@@ -61,7 +65,11 @@ pub fn sidereal_from_solar_day(solar_day_s: f64, year_s: f64, sense: SpinSense) 
 /// Solar day from the sidereal day: `1/P_sol = 1/P_sid − s/P_orb`; infinite when they cancel.
 pub fn solar_from_sidereal_day(sidereal_day_s: f64, year_s: f64, sense: SpinSense) -> f64 {
     let rate = 1.0 / sidereal_day_s - sense.sign() / year_s;
-    if rate.abs() <= 1e-15 / sidereal_day_s { f64::INFINITY } else { 1.0 / rate }
+    if rate.abs() <= 1e-15 / sidereal_day_s {
+        f64::INFINITY
+    } else {
+        1.0 / rate
+    }
 }
 
 impl Spin {
@@ -81,7 +89,11 @@ impl Spin {
     /// The world's "day" unit in seconds: the mean solar day, or the sidereal day (equal to
     /// the year) on a tidally locked world.
     pub fn day_s(&self) -> f64 {
-        if self.solar_day_s.is_finite() { self.solar_day_s } else { self.sidereal_day_s }
+        if self.solar_day_s.is_finite() {
+            self.solar_day_s
+        } else {
+            self.sidereal_day_s
+        }
     }
 }
 
@@ -137,6 +149,8 @@ mod tests {
             let sol = solar_from_sidereal_day(sid, 400.0 * DAY, sense);
             assert!((sol - 30.0 * HOUR).abs() < 1e-6);
         }
-        assert!(solar_from_sidereal_day(400.0 * DAY, 400.0 * DAY, SpinSense::Prograde).is_infinite());
+        assert!(
+            solar_from_sidereal_day(400.0 * DAY, 400.0 * DAY, SpinSense::Prograde).is_infinite()
+        );
     }
 }

@@ -76,13 +76,17 @@ pub fn facts(p: &Planet) -> Facts {
         ));
     }
     if swing > 2.0 {
-        warnings.push(format!("eccentric orbit: the star is {swing:.1}× brighter at periapsis than at apoapsis"));
+        warnings.push(format!(
+            "eccentric orbit: the star is {swing:.1}× brighter at periapsis than at apoapsis"
+        ));
     }
     if !locked && p.spin.solar_day_s > p.year_s() {
         warnings.push("the solar day is longer than the year".into());
     }
     if locked {
-        warnings.push("tidally locked: the star stands still in the sky apart from a small wobble".into());
+        warnings.push(
+            "tidally locked: the star stands still in the sky apart from a small wobble".into(),
+        );
     }
     let days = |x: f64| x / SECONDS_PER_DAY;
     Facts {
@@ -96,10 +100,16 @@ pub fn facts(p: &Planet) -> Facts {
         tropic_lat_deg: z.tropic_lat_deg,
         polar_circle_lat_deg: z.polar_circle_lat_deg,
         zones_overlap: z.overlapping,
-        season_lengths_days: [days(s.spring_s), days(s.summer_s), days(s.autumn_s), days(s.winter_s)],
+        season_lengths_days: [
+            days(s.spring_s),
+            days(s.summer_s),
+            days(s.autumn_s),
+            days(s.winter_s),
+        ],
         flux_at_mean_distance_w_m2: p.flux_at_mean_distance_w_m2,
         flux_swing_ratio: swing,
-        star_angular_diameter_deg: 2.0 * (p.star_radius_m / p.semi_major_axis_m).asin().to_degrees(),
+        star_angular_diameter_deg: 2.0
+            * (p.star_radius_m / p.semi_major_axis_m).asin().to_degrees(),
         standard_rise_altitude_deg: p.standard_rise_altitude_rad().to_degrees(),
         warnings,
     }
@@ -125,13 +135,28 @@ pub fn run(args: Args) -> Result<(), String> {
     if let Some(n) = f.year_solar_days {
         println!("  solar days/year  {n:.3}");
     }
-    println!("  spin             {}", if f.retrograde { "backwards (star rises in the west)" } else { "forwards (star rises in the east)" });
+    println!(
+        "  spin             {}",
+        if f.retrograde {
+            "backwards (star rises in the west)"
+        } else {
+            "forwards (star rises in the east)"
+        }
+    );
     println!("  tropics          ±{:.2}°", f.tropic_lat_deg);
     println!("  polar circles    ±{:.2}°", f.polar_circle_lat_deg);
     let [a, b, c, d] = f.season_lengths_days;
-    println!("  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d");
-    println!("  flux             {:.1} W/m² at mean distance ({:.2}× swing over the orbit)", f.flux_at_mean_distance_w_m2, f.flux_swing_ratio);
-    println!("  star disc        {:.3}° across; rises at {:.3}°", f.star_angular_diameter_deg, f.standard_rise_altitude_deg);
+    println!(
+        "  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d"
+    );
+    println!(
+        "  flux             {:.1} W/m² at mean distance ({:.2}× swing over the orbit)",
+        f.flux_at_mean_distance_w_m2, f.flux_swing_ratio
+    );
+    println!(
+        "  star disc        {:.3}° across; rises at {:.3}°",
+        f.star_angular_diameter_deg, f.standard_rise_altitude_deg
+    );
     for w in &f.warnings {
         println!("  warning: {w}");
     }

@@ -16,7 +16,12 @@ pub struct Args {
     #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
     lon: f64,
     /// Local day number (day 0 contains time zero).
-    #[arg(long, conflicts_with = "utc", required_unless_present = "utc", allow_hyphen_values = true)]
+    #[arg(
+        long,
+        conflicts_with = "utc",
+        required_unless_present = "utc",
+        allow_hyphen_values = true
+    )]
     day: Option<i64>,
     /// A UTC date (YYYY-MM-DD), for worlds tied to UTC: the local mean solar day of that date.
     #[arg(long)]
@@ -85,16 +90,25 @@ pub fn report(day: i64, ev: &DayEvents) -> DayReport {
 }
 
 /// The local day number for `--day` or `--utc`.
-pub fn resolve_day(p: &Planet, day: Option<i64>, utc: Option<&str>, lon_deg: f64) -> Result<i64, String> {
+pub fn resolve_day(
+    p: &Planet,
+    day: Option<i64>,
+    utc: Option<&str>,
+    lon_deg: f64,
+) -> Result<i64, String> {
     match (day, utc) {
         (Some(d), _) => Ok(d),
         (None, Some(text)) => {
-            let midnight = insola::world::parse_utc_unix_s(text).map_err(|e| format!("--utc {text}: {e}"))?;
+            let midnight =
+                insola::world::parse_utc_unix_s(text).map_err(|e| format!("--utc {text}: {e}"))?;
             // Local mean noon of that date at the observer's longitude.
             let noon = midnight + 43_200.0 - lon_deg / 15.0 * 3600.0;
-            let t = p
-                .time_of_utc(noon)
-                .ok_or_else(|| format!("world `{}` is not tied to UTC (no epoch.utc); use --day", p.spec.name))?;
+            let t = p.time_of_utc(noon).ok_or_else(|| {
+                format!(
+                    "world `{}` is not tied to UTC (no epoch.utc); use --day",
+                    p.spec.name
+                )
+            })?;
             Ok(p.local_day_count(t, lon_deg.to_radians()).floor() as i64)
         }
         (None, None) => Err("give --day or --utc".into()),
@@ -112,18 +126,38 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&r);
     }
     use super::output::hm;
-    println!("{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)", p.spec.name, lat, args.lon, day, r.local_day_h);
+    println!(
+        "{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)",
+        p.spec.name, lat, args.lon, day, r.local_day_h
+    );
     match r.polar {
         Some(Polar::Day) => println!("  the star never sets (polar day)"),
         Some(Polar::Night) => println!("  the star never rises (polar night)"),
-        None => println!("  rise {}   transit {}   set {}", hm(r.sunrise_h), hm(r.transit_h), hm(r.sunset_h)),
+        None => println!(
+            "  rise {}   transit {}   set {}",
+            hm(r.sunrise_h),
+            hm(r.transit_h),
+            hm(r.sunset_h)
+        ),
     }
     if let Some(a) = r.transit_altitude_deg {
         println!("  transit altitude {a:.2}°");
     }
     println!("  star up for {}", hm(Some(r.day_length_h)));
-    println!("  civil twilight        {} – {}", hm(r.civil_dawn_h), hm(r.civil_dusk_h));
-    println!("  nautical twilight     {} – {}", hm(r.nautical_dawn_h), hm(r.nautical_dusk_h));
-    println!("  astronomical twilight {} – {}", hm(r.astronomical_dawn_h), hm(r.astronomical_dusk_h));
+    println!(
+        "  civil twilight        {} – {}",
+        hm(r.civil_dawn_h),
+        hm(r.civil_dusk_h)
+    );
+    println!(
+        "  nautical twilight     {} – {}",
+        hm(r.nautical_dawn_h),
+        hm(r.nautical_dusk_h)
+    );
+    println!(
+        "  astronomical twilight {} – {}",
+        hm(r.astronomical_dawn_h),
+        hm(r.astronomical_dusk_h)
+    );
     Ok(())
 }

@@ -25,13 +25,22 @@ pub fn run(args: Args) -> Result<(), String> {
     let mut entries = Vec::new();
     for (name, text) in BUILT_IN {
         let spec = insola::WorldSpec::from_ron_str(text).map_err(|e| e.to_string())?;
-        entries.push(Entry { name: name.to_string(), title: spec.name, description: spec.description, reference: spec.reference });
+        entries.push(Entry {
+            name: name.to_string(),
+            title: spec.name,
+            description: spec.description,
+            reference: spec.reference,
+        });
     }
     if args.json {
         return super::output::print_json(&entries);
     }
     for e in entries {
-        let mark = if e.reference { " (validation reference, not game content)" } else { "" };
+        let mark = if e.reference {
+            " (validation reference, not game content)"
+        } else {
+            ""
+        };
         println!("{:<16} {}{mark}: {}", e.name, e.title, e.description);
     }
     Ok(())

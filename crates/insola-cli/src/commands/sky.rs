@@ -16,7 +16,12 @@ pub struct Args {
     #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
     lon: f64,
     /// Solar days since the world's time zero (fractional).
-    #[arg(long, conflicts_with = "utc", required_unless_present = "utc", allow_hyphen_values = true)]
+    #[arg(
+        long,
+        conflicts_with = "utc",
+        required_unless_present = "utc",
+        allow_hyphen_values = true
+    )]
     day: Option<f64>,
     /// A UTC instant (RFC 3339), for worlds tied to UTC.
     #[arg(long)]
@@ -101,9 +106,14 @@ pub fn resolve_time(p: &Planet, day: Option<f64>, utc: Option<&str>) -> Result<f
         (Some(d), _) if d.is_finite() => Ok(p.time_of_solar_days(d)),
         (Some(d), _) => Err(format!("--day {d} is not a finite number")),
         (None, Some(text)) => {
-            let unix = insola::world::parse_utc_unix_s(text).map_err(|e| format!("--utc {text}: {e}"))?;
-            p.time_of_utc(unix)
-                .ok_or_else(|| format!("world `{}` is not tied to UTC (no epoch.utc); use --day", p.spec.name))
+            let unix =
+                insola::world::parse_utc_unix_s(text).map_err(|e| format!("--utc {text}: {e}"))?;
+            p.time_of_utc(unix).ok_or_else(|| {
+                format!(
+                    "world `{}` is not tied to UTC (no epoch.utc); use --day",
+                    p.spec.name
+                )
+            })
         }
         (None, None) => Err("give --day or --utc".into()),
     }
@@ -158,17 +168,39 @@ pub fn run(args: Args) -> Result<(), String> {
     let lat = super::output::check_lat(args.lat)?;
     let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
     let t = resolve_time(&p, args.day, args.utc.as_deref())?;
-    let mode = if args.top_of_atmosphere { LightMode::TopOfAtmosphere } else { LightMode::Ground };
+    let mode = if args.top_of_atmosphere {
+        LightMode::TopOfAtmosphere
+    } else {
+        LightMode::Ground
+    };
     let r = report(&p, t, place, mode);
     if args.json {
         return super::output::print_json(&r);
     }
-    println!("{} at {:.3}°, {:.3}° — day {:.4} (local mean time {:.2} h)", p.spec.name, lat, args.lon, r.day, r.local_mean_time_h);
-    println!("  star      altitude {:8.3}°  azimuth {:8.3}°  hour angle {:8.3}°", r.altitude_deg, r.azimuth_deg, r.hour_angle_deg);
-    println!("            declination {:.3}°  right ascension {:.3}°  ecliptic longitude {:.3}°", r.declination_deg, r.right_ascension_deg, r.ecliptic_longitude_deg);
-    println!("            distance {:.5} AU  equation of time {:+.2} min", r.distance_au, r.equation_of_time_min);
-    println!("  light     direct {:.4e} lx  sky {:.4e} lx  CCT {:.0} K  twilight: {}", r.direct_illuminance_lux, r.sky_illuminance_lux, r.light_cct_k, r.twilight);
-    println!("            top-of-atmosphere insolation {:.1} W/m²", r.toa_insolation_w_m2);
+    println!(
+        "{} at {:.3}°, {:.3}° — day {:.4} (local mean time {:.2} h)",
+        p.spec.name, lat, args.lon, r.day, r.local_mean_time_h
+    );
+    println!(
+        "  star      altitude {:8.3}°  azimuth {:8.3}°  hour angle {:8.3}°",
+        r.altitude_deg, r.azimuth_deg, r.hour_angle_deg
+    );
+    println!(
+        "            declination {:.3}°  right ascension {:.3}°  ecliptic longitude {:.3}°",
+        r.declination_deg, r.right_ascension_deg, r.ecliptic_longitude_deg
+    );
+    println!(
+        "            distance {:.5} AU  equation of time {:+.2} min",
+        r.distance_au, r.equation_of_time_min
+    );
+    println!(
+        "  light     direct {:.4e} lx  sky {:.4e} lx  CCT {:.0} K  twilight: {}",
+        r.direct_illuminance_lux, r.sky_illuminance_lux, r.light_cct_k, r.twilight
+    );
+    println!(
+        "            top-of-atmosphere insolation {:.1} W/m²",
+        r.toa_insolation_w_m2
+    );
     for m in &r.moons {
         println!(
             "  moon {:<10} altitude {:7.2}°  azimuth {:7.2}°  lit {:5.1} %  {:.3e} lx{}",
@@ -177,7 +209,11 @@ pub fn run(args: Args) -> Result<(), String> {
             m.azimuth_deg,
             100.0 * m.illuminated_fraction,
             m.illuminance_lux,
-            if m.eclipse_fraction > 0.0 { format!("  eclipsed {:.0} %", 100.0 * m.eclipse_fraction) } else { String::new() }
+            if m.eclipse_fraction > 0.0 {
+                format!("  eclipsed {:.0} %", 100.0 * m.eclipse_fraction)
+            } else {
+                String::new()
+            }
         );
     }
     Ok(())

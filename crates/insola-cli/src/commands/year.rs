@@ -51,7 +51,8 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
             let mut sum = 0.0;
             let mut best = f64::MIN;
             for i in 0..INSOLATION_SAMPLES {
-                let t = ev.day_start_s + (i as f64 + 0.5) / INSOLATION_SAMPLES as f64 * ev.day_length_s;
+                let t =
+                    ev.day_start_s + (i as f64 + 0.5) / INSOLATION_SAMPLES as f64 * ev.day_length_s;
                 let s = p.star_position(t, place);
                 sum += s.toa_insolation_w_m2;
                 best = best.max(s.altitude_rad);
@@ -79,12 +80,18 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.csv {
         println!("day,year_fraction,day_length_h,noon_altitude_deg,insolation_w_m2");
         for r in &rows {
-            println!("{},{:.6},{:.4},{:.4},{:.3}", r.day, r.year_fraction, r.day_length_h, r.noon_altitude_deg, r.insolation_w_m2);
+            println!(
+                "{},{:.6},{:.4},{:.4},{:.3}",
+                r.day, r.year_fraction, r.day_length_h, r.noon_altitude_deg, r.insolation_w_m2
+            );
         }
         return Ok(());
     }
     println!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.lon);
-    println!("{:>6} {:>8} {:>10} {:>12} {:>12}", "day", "year", "daylight", "noon alt °", "insol W/m²");
+    println!(
+        "{:>6} {:>8} {:>10} {:>12} {:>12}",
+        "day", "year", "daylight", "noon alt °", "insol W/m²"
+    );
     for r in &rows {
         println!(
             "{:>6} {:>8.4} {:>10} {:>12.2} {:>12.1}",

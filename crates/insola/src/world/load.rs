@@ -61,19 +61,29 @@ fn parse_with_path(text: &str, path: &str) -> Result<WorldSpec, SpecError> {
     ron::Options::default()
         // Optional fields are written plainly (`solar_day_hours: 24`), without `Some(..)`.
         .with_default_extension(ron::extensions::Extensions::IMPLICIT_SOME)
-        .from_str::<WorldSpec>(text).map_err(|e| {
-        let line = e.span.start.line;
-        let column = e.span.start.col;
-        match e.code {
-            ron::Error::NoSuchStructField { expected, found, outer } => SpecError::UnknownField {
-                path: path.to_string(),
-                line,
-                column,
-                section: outer.unwrap_or_else(|| "world".to_string()),
-                field: found,
-                known: expected.join(", "),
-            },
-            code => SpecError::Syntax { path: path.to_string(), line, column, message: code.to_string() },
-        }
-    })
+        .from_str::<WorldSpec>(text)
+        .map_err(|e| {
+            let line = e.span.start.line;
+            let column = e.span.start.col;
+            match e.code {
+                ron::Error::NoSuchStructField {
+                    expected,
+                    found,
+                    outer,
+                } => SpecError::UnknownField {
+                    path: path.to_string(),
+                    line,
+                    column,
+                    section: outer.unwrap_or_else(|| "world".to_string()),
+                    field: found,
+                    known: expected.join(", "),
+                },
+                code => SpecError::Syntax {
+                    path: path.to_string(),
+                    line,
+                    column,
+                    message: code.to_string(),
+                },
+            }
+        })
 }

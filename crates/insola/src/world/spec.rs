@@ -39,6 +39,9 @@ pub struct WorldSpec {
     /// Parameters of the seasonal climate model. Absent: Earth-calibrated defaults.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub climate: Option<crate::climate::ClimateSpec>,
+    /// The planet's radius and mass, and the star's mass (for moons). Absent: Earth-like.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub body: Option<crate::moons::BodySpec>,
     /// Natural satellites, zero or more.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
     pub moons: Vec<crate::moons::MoonSpec>,

@@ -36,7 +36,10 @@ mod tests {
     #[test]
     fn j2000_noon() {
         // 2000-01-01T12:00:00Z is 946 728 000 s after the Unix epoch (10 957.5 days; from memory).
-        assert_eq!(parse_utc_unix_s("2000-01-01T12:00:00Z").unwrap(), 946_728_000.0);
+        assert_eq!(
+            parse_utc_unix_s("2000-01-01T12:00:00Z").unwrap(),
+            946_728_000.0
+        );
         assert_eq!(parse_utc_unix_s("2000-01-02").unwrap(), 946_771_200.0);
         assert!(parse_utc_unix_s("yesterday").is_err());
         assert_eq!(format_utc(946_728_000.0), "2000-01-01T12:00:00.000Z");

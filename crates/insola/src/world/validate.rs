@@ -26,6 +26,9 @@ impl WorldSpec {
         if let Some(climate) = &self.climate {
             climate.validate("climate")?;
         }
+        if let Some(body) = &self.body {
+            body.validate("body")?;
+        }
         for (i, moon) in self.moons.iter().enumerate() {
             moon.validate(&format!("moons[{i}]"), self)?;
         }
@@ -71,9 +74,24 @@ impl StarSpec {
 
 impl OrbitSpec {
     fn validate(&self) -> Result<(), SpecError> {
-        check_range_open_min("orbit.semi_major_axis_au", self.semi_major_axis_au, 0.0, 1.0e4)?;
-        check_range("orbit.eccentricity", self.eccentricity, 0.0, MAX_ECCENTRICITY)?;
-        check_range("orbit.periapsis_longitude_deg", self.periapsis_longitude_deg, -360.0, 360.0)?;
+        check_range_open_min(
+            "orbit.semi_major_axis_au",
+            self.semi_major_axis_au,
+            0.0,
+            1.0e4,
+        )?;
+        check_range(
+            "orbit.eccentricity",
+            self.eccentricity,
+            0.0,
+            MAX_ECCENTRICITY,
+        )?;
+        check_range(
+            "orbit.periapsis_longitude_deg",
+            self.periapsis_longitude_deg,
+            -360.0,
+            360.0,
+        )?;
         check_range_open_min("orbit.period_days", self.period_days, 0.0, 1.0e8)?;
         Ok(())
     }
@@ -83,10 +101,14 @@ impl SpinSpec {
     fn validate(&self, period_days: f64) -> Result<(), SpecError> {
         check_range("spin.obliquity_deg", self.obliquity_deg, 0.0, 180.0)?;
         let year_h = period_days * 24.0;
-        let given = [self.solar_day_hours.is_some(), self.sidereal_day_hours.is_some(), self.tidally_locked]
-            .iter()
-            .filter(|g| **g)
-            .count();
+        let given = [
+            self.solar_day_hours.is_some(),
+            self.sidereal_day_hours.is_some(),
+            self.tidally_locked,
+        ]
+        .iter()
+        .filter(|g| **g)
+        .count();
         if given != 1 {
             return Err(SpecError::inconsistent(
                 "spin.solar_day_hours",
@@ -137,8 +159,16 @@ impl SpinSpec {
 
 impl EpochSpec {
     fn validate(&self, spin: &SpinSpec) -> Result<(), SpecError> {
-        check_range("epoch.star_longitude_deg", self.star_longitude_deg, -360.0, 360.0)?;
-        let day_h = spin.solar_day_hours.or(spin.sidereal_day_hours).unwrap_or(f64::INFINITY);
+        check_range(
+            "epoch.star_longitude_deg",
+            self.star_longitude_deg,
+            -360.0,
+            360.0,
+        )?;
+        let day_h = spin
+            .solar_day_hours
+            .or(spin.sidereal_day_hours)
+            .unwrap_or(f64::INFINITY);
         let t = self.prime_meridian_solar_time_hours;
         if !(t.is_finite() && t >= 0.0 && (t < day_h || day_h.is_infinite() && t <= 1.0e9)) {
             return Err(SpecError::out_of_range(
