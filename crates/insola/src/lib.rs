@@ -1,6 +1,7 @@
 #![doc = include_str!("../README.md")]
 
 pub mod angle;
+pub mod batch;
 pub mod calendar;
 pub mod climate;
 pub mod constants;
