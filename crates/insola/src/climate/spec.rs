@@ -46,10 +46,12 @@ pub struct ClimateSpec {
     /// Temperature below which a band is ice covered, °C. Default −10.
     pub ice_temperature_c: f64,
     /// Heat capacity of the thin surface layer that follows the day-night cycle, J m⁻² K⁻¹.
-    /// Default 1.5×10⁶ (about a 10 K day-night range on a day of 24 h; common practice, no source).
+    /// Default 6×10⁵: with the default damping a 24 h day then gives a land-like day-night
+    /// range of roughly 10–15 K peaking in the afternoon (common practice, no source).
     pub surface_heat_capacity_j_m2_per_k: f64,
     /// Damping of the day-night temperature deviation (radiation plus local air exchange),
-    /// W m⁻² K⁻¹. Default 10 (common practice, no source).
+    /// W m⁻² K⁻¹. Default 30 (common practice, no source). Lower values give slow rotators
+    /// larger day-night swings.
     pub diurnal_damping_w_m2_per_k: f64,
     /// Temperature decrease with elevation, K per km. Default 6.5 (standard atmosphere).
     pub lapse_rate_k_per_km: f64,
@@ -78,8 +80,8 @@ impl Default for ClimateSpec {
             ice_enabled: true,
             ice_albedo: 0.62,
             ice_temperature_c: -10.0,
-            surface_heat_capacity_j_m2_per_k: 1.5e6,
-            diurnal_damping_w_m2_per_k: 10.0,
+            surface_heat_capacity_j_m2_per_k: 6e5,
+            diurnal_damping_w_m2_per_k: 30.0,
             lapse_rate_k_per_km: 6.5,
             max_years: 400,
             tolerance_k: 0.01,
