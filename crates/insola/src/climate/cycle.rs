@@ -31,6 +31,14 @@ pub struct IceEdges {
     pub south_lat_rad: Option<f64>,
 }
 
+/// How the search for the periodic state ended.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct RunOutcome {
+    pub(crate) years: u32,
+    pub(crate) residual_k: f64,
+    pub(crate) converged: bool,
+}
+
 /// The periodic (equilibrium) seasonal cycle of zonal-mean surface temperature.
 ///
 /// `temperatures_c(k)[j]` is the temperature of band `j` at year fraction `k / steps`, °C.
@@ -56,9 +64,7 @@ impl ClimateCycle {
         forcing: Option<&AnnualForcing>,
         steps: usize,
         temps_c: Vec<f64>,
-        years_to_equilibrium: u32,
-        residual_k: f64,
-        converged: bool,
+        run: RunOutcome,
     ) -> Self {
         let nb = grid.len();
         let ice = |t: f64| spec.ice_enabled && t < spec.ice_temperature_c;
@@ -88,9 +94,9 @@ impl ClimateCycle {
             forcing: forcing.cloned(),
             steps,
             temps_c,
-            years_to_equilibrium,
-            residual_k,
-            converged,
+            years_to_equilibrium: run.years,
+            residual_k: run.residual_k,
+            converged: run.converged,
             stats,
             phases,
         }
@@ -169,12 +175,17 @@ impl ClimateCycle {
     /// Area-weighted global mean temperature at `year_fraction`, °C.
     pub fn global_mean_at_c(&self, year_fraction: f64) -> f64 {
         let (k0, k1, w) = periodic_index(year_fraction, self.steps);
-        (1.0 - w) * self.grid.global_mean(self.temperatures_c(k0)) + w * self.grid.global_mean(self.temperatures_c(k1))
+        (1.0 - w) * self.grid.global_mean(self.temperatures_c(k0))
+            + w * self.grid.global_mean(self.temperatures_c(k1))
     }
 
     /// Fraction of the planet's area and year that is ice covered (0–1).
     pub fn ice_area_fraction(&self) -> f64 {
-        self.stats.iter().map(|s| s.ice_fraction_of_year).sum::<f64>() / self.stats.len() as f64
+        self.stats
+            .iter()
+            .map(|s| s.ice_fraction_of_year)
+            .sum::<f64>()
+            / self.stats.len() as f64
     }
 
     /// Ice-edge latitudes where the annual-mean temperature crosses the ice temperature,
@@ -182,12 +193,18 @@ impl ClimateCycle {
     /// (an equatorial ice belt and polar caps), the one nearest the equator is reported.
     pub fn ice_edges(&self) -> IceEdges {
         if !self.spec.ice_enabled {
-            return IceEdges { north_lat_rad: None, south_lat_rad: None };
+            return IceEdges {
+                north_lat_rad: None,
+                south_lat_rad: None,
+            };
         }
         let n = self.stats.len();
         let north: Vec<usize> = (n / 2..n).collect();
         let south: Vec<usize> = (0..n.div_ceil(2)).rev().collect();
-        IceEdges { north_lat_rad: self.edge_along(&north), south_lat_rad: self.edge_along(&south) }
+        IceEdges {
+            north_lat_rad: self.edge_along(&north),
+            south_lat_rad: self.edge_along(&south),
+        }
     }
 
     fn edge_along(&self, order: &[usize]) -> Option<f64> {

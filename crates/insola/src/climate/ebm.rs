@@ -45,16 +45,20 @@ impl Tridiagonal {
             c_prime[j] = if j + 1 < n { upper[j] * inv } else { 0.0 };
             prev_c = c_prime[j];
         }
-        Tridiagonal { lower: lower.to_vec(), c_prime, inv_denom }
+        Tridiagonal {
+            lower: lower.to_vec(),
+            c_prime,
+            inv_denom,
+        }
     }
 
     /// Solves `M x = rhs` in place (`rhs` becomes `x`).
     pub(crate) fn solve_in_place(&self, rhs: &mut [f64]) {
         let n = rhs.len();
         let mut prev = 0.0;
-        for j in 0..n {
-            let y = (rhs[j] - self.lower[j] * prev) * self.inv_denom[j];
-            rhs[j] = y;
+        for ((r, l), inv) in rhs.iter_mut().zip(&self.lower).zip(&self.inv_denom) {
+            let y = (*r - l * prev) * inv;
+            *r = y;
             prev = y;
         }
         for j in (0..n.saturating_sub(1)).rev() {
@@ -92,7 +96,11 @@ impl EnergyBalanceModel {
         if insolation.bands() != grid.len() {
             return Err(SpecError::inconsistent(
                 "climate.bands",
-                format!("the insolation table has {} bands, the spec {}", insolation.bands(), grid.len()),
+                format!(
+                    "the insolation table has {} bands, the spec {}",
+                    insolation.bands(),
+                    grid.len()
+                ),
             ));
         }
         let heat_capacity = spec.heat_capacity_j_m2_per_k();
@@ -102,7 +110,13 @@ impl EnergyBalanceModel {
         // Edge conductances k_e = D (1 − x_e²)/Δx² for the interior edges 1..n.
         let edges = grid.x_edges();
         let k: Vec<f64> = (0..=n)
-            .map(|e| if e == 0 || e == n { 0.0 } else { spec.diffusion_w_m2_per_k * (1.0 - edges[e] * edges[e]) / (dx * dx) })
+            .map(|e| {
+                if e == 0 || e == n {
+                    0.0
+                } else {
+                    spec.diffusion_w_m2_per_k * (1.0 - edges[e] * edges[e]) / (dx * dx)
+                }
+            })
             .collect();
         let lower: Vec<f64> = (0..n).map(|j| -k[j]).collect();
         let upper: Vec<f64> = (0..n).map(|j| -k[j + 1]).collect();
@@ -110,7 +124,11 @@ impl EnergyBalanceModel {
         let diag_steady: Vec<f64> = (0..n).map(|j| b + k[j] + k[j + 1]).collect();
         let c_dt = heat_capacity / dt_s;
         let diag_step: Vec<f64> = diag_steady.iter().map(|d| d + c_dt).collect();
-        let coalbedo_free = grid.x_centres().iter().map(|&x| 1.0 - spec.ice_free_albedo(x)).collect();
+        let coalbedo_free = grid
+            .x_centres()
+            .iter()
+            .map(|&x| 1.0 - spec.ice_free_albedo(x))
+            .collect();
         Ok(EnergyBalanceModel {
             spec: spec.clone(),
             coalbedo_ice: 1.0 - spec.ice_albedo,
@@ -149,7 +167,7 @@ impl EnergyBalanceModel {
         self.insolation.steps()
     }
 
-    /// Whether band `j` at temperature `t_c` (°C) is ice covered.
+    /// Whether a band at temperature `t_c` (°C) is ice covered.
     #[inline]
     pub fn is_ice(&self, t_c: f64) -> bool {
         self.spec.ice_enabled && t_c < self.spec.ice_temperature_c
@@ -158,7 +176,11 @@ impl EnergyBalanceModel {
     /// Co-albedo (absorbed fraction of sunlight) of band `j` at temperature `t_c` (°C).
     #[inline]
     pub fn coalbedo(&self, j: usize, t_c: f64) -> f64 {
-        if self.is_ice(t_c) { self.coalbedo_ice } else { self.coalbedo_free[j] }
+        if self.is_ice(t_c) {
+            self.coalbedo_ice
+        } else {
+            self.coalbedo_free[j]
+        }
     }
 
     /// Advances `temps_c` (one value per band, °C) by one step to the end of step `k`, i.e. to
@@ -199,7 +221,10 @@ impl EnergyBalanceModel {
                 next[j] = qbar[j] * self.coalbedo(j, t[j]) - self.spec.olr_a_w_m2;
             }
             self.steady_matrix.solve_in_place(&mut next);
-            let same_mask = t.iter().zip(&next).all(|(&a, &b)| self.is_ice(a) == self.is_ice(b));
+            let same_mask = t
+                .iter()
+                .zip(&next)
+                .all(|(&a, &b)| self.is_ice(a) == self.is_ice(b));
             std::mem::swap(&mut t, &mut next);
             if same_mask {
                 break;
@@ -245,9 +270,20 @@ mod tests {
             (0.7 * 1365.2 / 4.0 * (1.0 - 0.48 * p2 / (1.0 + 6.0 * 0.555 / 2.0)) - 210.0) / 2.0
         };
         for (j, &x) in grid.x_centres().iter().enumerate() {
-            assert!((t[j] - exact(x)).abs() < 0.02, "band {j}: {} vs {}", t[j], exact(x));
+            assert!(
+                (t[j] - exact(x)).abs() < 0.02,
+                "band {j}: {} vs {}",
+                t[j],
+                exact(x)
+            );
         }
-        for (lat, want) in [(0.0, 25.213), (30.0, 17.144), (45.0, 9.076), (60.0, 1.008), (90.0, -7.060)] {
+        for (lat, want) in [
+            (0.0, 25.213),
+            (30.0, 17.144),
+            (45.0, 9.076),
+            (60.0, 1.008),
+            (90.0, -7.060),
+        ] {
             let got = grid.interpolate(&t, f64::to_radians(lat));
             assert!((got - want).abs() < 0.02, "{lat}: {got} vs {want}");
         }
@@ -258,7 +294,11 @@ mod tests {
     #[test]
     fn step_conserves_energy_without_sunlight_gradients() {
         // Uniform forcing and uniform start: diffusion does nothing, every band relaxes alike.
-        let spec = ClimateSpec { ice_enabled: false, albedo_a2: 0.0, ..ClimateSpec::default() };
+        let spec = ClimateSpec {
+            ice_enabled: false,
+            albedo_a2: 0.0,
+            ..ClimateSpec::default()
+        };
         let grid = ClimateGrid::new(spec.bands).unwrap();
         let ins = BandInsolation::from_fn(&grid, 50, 3.15e7, |_, _| 300.0).unwrap();
         let model = EnergyBalanceModel::new(&spec, ins).unwrap();

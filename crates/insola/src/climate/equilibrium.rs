@@ -16,7 +16,7 @@
 
 use thiserror::Error;
 
-use super::cycle::ClimateCycle;
+use super::cycle::{ClimateCycle, RunOutcome};
 use super::ebm::EnergyBalanceModel;
 use super::forcing::{AnnualForcing, BandInsolation};
 use super::grid::ClimateGrid;
@@ -49,7 +49,10 @@ pub enum ClimateError {
 /// Where the seasonal integration starts.
 #[derive(Debug, Clone, PartialEq)]
 pub enum Start {
-    /// The steady state under annual-mean insolation (the default and the fastest).
+    /// The steady state under annual-mean insolation (the default and the fastest). Where the
+    /// ice-albedo feedback allows several climates, this finds the warmest (ice-free-start)
+    /// one; use [`Start::Uniform`] or [`Start::Given`] with a cold start to look for ice caps
+    /// or a snowball.
     SteadyAnnualMean,
     /// Every band at this temperature, °C (e.g. a very cold start to look for a snowball).
     Uniform(f64),
@@ -59,7 +62,10 @@ pub enum Start {
 
 /// The periodic seasonal climate of a world: validates, builds the model, starts from the
 /// annual-mean steady state and runs years until periodic.
-pub fn equilibrate(spec: &ClimateSpec, forcing: &AnnualForcing) -> Result<ClimateCycle, ClimateError> {
+pub fn equilibrate(
+    spec: &ClimateSpec,
+    forcing: &AnnualForcing,
+) -> Result<ClimateCycle, ClimateError> {
     let grid = ClimateGrid::new(spec.bands)?;
     spec.validate("climate")?;
     let insolation = BandInsolation::from_forcing(forcing, &grid, spec.steps_per_year)?;
@@ -82,7 +88,11 @@ pub fn equilibrate_model(
         Start::Uniform(t) => vec![crate::error::check_range("start_c", *t, -273.15, 1e4)?; nb],
         Start::Given(v) => {
             if v.len() != nb {
-                return Err(SpecError::inconsistent("start_c", format!("{} values given for {nb} bands", v.len())).into());
+                return Err(SpecError::inconsistent(
+                    "start_c",
+                    format!("{} values given for {nb} bands", v.len()),
+                )
+                .into());
             }
             for (j, &t) in v.iter().enumerate() {
                 crate::error::check_range(&format!("start_c[{j}]"), t, -273.15, 1e4)?;
@@ -96,8 +106,10 @@ pub fn equilibrate_model(
     let decay = ModeDecay::new(model);
     let mut last_ice = usize::MAX;
     let mut residual = f64::INFINITY;
+    let mut years_run = 0;
     for year in 1..=spec.max_years {
         model.run_year(&mut state, &mut trajectory, &mut scratch);
+        years_run = year;
         residual = 0.0;
         for j in 0..nb {
             delta[j] = state[j] - trajectory[j];
@@ -107,7 +119,18 @@ pub fn equilibrate_model(
             break;
         }
         if residual < spec.tolerance_k {
-            return Ok(ClimateCycle::from_year(spec, model.grid(), forcing, steps, trajectory, year, residual, true));
+            return Ok(ClimateCycle::from_year(
+                spec,
+                model.grid(),
+                forcing,
+                steps,
+                trajectory,
+                RunOutcome {
+                    years: year,
+                    residual_k: residual,
+                    converged: true,
+                },
+            ));
         }
         let ice = trajectory.iter().filter(|&&t| model.is_ice(t)).count();
         if ice == last_ice {
@@ -115,9 +138,20 @@ pub fn equilibrate_model(
         }
         last_ice = ice;
     }
-    let last = ClimateCycle::from_year(spec, model.grid(), forcing, steps, trajectory, spec.max_years, residual, false);
+    let last = ClimateCycle::from_year(
+        spec,
+        model.grid(),
+        forcing,
+        steps,
+        trajectory,
+        RunOutcome {
+            years: years_run,
+            residual_k: residual,
+            converged: false,
+        },
+    );
     Err(ClimateError::NotConverged {
-        years: spec.max_years,
+        years: years_run,
         residual_k: residual,
         tolerance_k: spec.tolerance_k,
         last: Box::new(last),
@@ -140,7 +174,9 @@ impl ModeDecay {
             // Capped so a nearly undamped mode (huge heat capacity) cannot be thrown far away.
             (r / (1.0 - r)).min(1e3)
         };
-        ModeDecay { gain: [factor(0.0), factor(2.0 * s.diffusion_w_m2_per_k)] }
+        ModeDecay {
+            gain: [factor(0.0), factor(2.0 * s.diffusion_w_m2_per_k)],
+        }
     }
 
     /// `state += Σ_n gain_n · proj_n(delta) · P_n` for n = 0, 1 (area-weighted projections).

@@ -35,12 +35,25 @@ impl AnnualForcing {
         check_range_open_min("forcing.s0_w_m2", self.s0_w_m2, 0.0, 1e6)?;
         check_range_open_min("forcing.year_s", self.year_s, 0.0, 1e15)?;
         if self.samples.is_empty() {
-            return Err(SpecError::inconsistent("forcing.samples", "at least one sample is needed"));
+            return Err(SpecError::inconsistent(
+                "forcing.samples",
+                "at least one sample is needed",
+            ));
         }
         let half_pi = std::f64::consts::FRAC_PI_2;
         for (i, s) in self.samples.iter().enumerate() {
-            check_range(&format!("forcing.samples[{i}].declination_rad"), s.declination_rad, -half_pi, half_pi)?;
-            check_range_open_min(&format!("forcing.samples[{i}].distance_factor"), s.distance_factor, 1e-3, 1e3)?;
+            check_range(
+                &format!("forcing.samples[{i}].declination_rad"),
+                s.declination_rad,
+                -half_pi,
+                half_pi,
+            )?;
+            check_range_open_min(
+                &format!("forcing.samples[{i}].distance_factor"),
+                s.distance_factor,
+                1e-3,
+                1e3,
+            )?;
         }
         Ok(())
     }
@@ -50,7 +63,10 @@ impl AnnualForcing {
     pub fn sample_at(&self, year_fraction: f64) -> SeasonSample {
         let n = self.samples.len();
         if n == 0 {
-            return SeasonSample { declination_rad: 0.0, distance_factor: 1.0 };
+            return SeasonSample {
+                declination_rad: 0.0,
+                distance_factor: 1.0,
+            };
         }
         let (i0, i1, w) = periodic_index(year_fraction, n);
         let (a, b) = (self.samples[i0], self.samples[i1]);
@@ -64,7 +80,11 @@ impl AnnualForcing {
 /// `(i0, i1, w)` for linear interpolation at `year_fraction` in a periodic table of `n` entries
 /// at fractions `i / n`.
 pub(crate) fn periodic_index(year_fraction: f64, n: usize) -> (usize, usize, f64) {
-    let f = if year_fraction.is_finite() { year_fraction.rem_euclid(1.0) } else { 0.0 };
+    let f = if year_fraction.is_finite() {
+        year_fraction.rem_euclid(1.0)
+    } else {
+        0.0
+    };
     let s = f * n as f64;
     let i0 = (s.floor() as usize).min(n - 1);
     let w = (s - i0 as f64).clamp(0.0, 1.0);
@@ -82,26 +102,30 @@ pub struct BandInsolation {
 }
 
 impl BandInsolation {
-    /// Builds the table from the orbit forcing: Berger (1978) daily means at each band centre for
-    /// every forcing sample, then linearly interpolated in time onto `steps` model steps.
-    pub fn from_forcing(forcing: &AnnualForcing, grid: &ClimateGrid, steps: usize) -> Result<Self, SpecError> {
+    /// Builds the table from the orbit forcing: declination and distance are interpolated
+    /// linearly in time to each model step ([`AnnualForcing::sample_at`]), then the Berger (1978)
+    /// daily mean is taken at each band centre.
+    pub fn from_forcing(
+        forcing: &AnnualForcing,
+        grid: &ClimateGrid,
+        steps: usize,
+    ) -> Result<Self, SpecError> {
         forcing.validate()?;
         check_range("climate.steps_per_year", steps as f64, 1.0, 1e6)?;
         let lats = grid.lat_centres_rad();
-        let per_sample: Vec<f64> = forcing
-            .samples
-            .iter()
-            .flat_map(|s| lats.iter().map(|&lat| daily_mean_w_m2(forcing.s0_w_m2, lat, s.declination_rad, s.distance_factor)))
-            .collect();
-        let nb = grid.len();
-        let ns = forcing.samples.len();
-        let mut w_m2 = Vec::with_capacity(steps * nb);
+        let mut w_m2 = Vec::with_capacity(steps * grid.len());
         for k in 0..steps {
-            let (i0, i1, w) = periodic_index(k as f64 / steps as f64, ns);
-            let (r0, r1) = (&per_sample[i0 * nb..(i0 + 1) * nb], &per_sample[i1 * nb..(i1 + 1) * nb]);
-            w_m2.extend(r0.iter().zip(r1).map(|(a, b)| a + w * (b - a)));
+            let s = forcing.sample_at(k as f64 / steps as f64);
+            w_m2.extend(lats.iter().map(|&lat| {
+                daily_mean_w_m2(forcing.s0_w_m2, lat, s.declination_rad, s.distance_factor)
+            }));
         }
-        Ok(BandInsolation { steps, bands: nb, year_s: forcing.year_s, w_m2 })
+        Ok(BandInsolation {
+            steps,
+            bands: grid.len(),
+            year_s: forcing.year_s,
+            w_m2,
+        })
     }
 
     /// A table from a function `q(x, year_fraction)` in W m⁻², `x = sin φ` at band centres —
@@ -122,15 +146,28 @@ impl BandInsolation {
                 w_m2.push(check_range("forcing.insolation", q(x, f), 0.0, 1e7)?);
             }
         }
-        Ok(BandInsolation { steps, bands: grid.len(), year_s, w_m2 })
+        Ok(BandInsolation {
+            steps,
+            bands: grid.len(),
+            year_s,
+            w_m2,
+        })
     }
 
     /// The annual-mean Legendre form `Q(x) = S0/4 · (1 + s2·P2(x))`, constant in time
     /// (North 1975; climlab `P2Insolation`). `s2` must be within [−2, 1] so `Q ≥ 0`.
-    pub fn annual_mean_p2(grid: &ClimateGrid, steps: usize, year_s: f64, s0_w_m2: f64, s2: f64) -> Result<Self, SpecError> {
+    pub fn annual_mean_p2(
+        grid: &ClimateGrid,
+        steps: usize,
+        year_s: f64,
+        s0_w_m2: f64,
+        s2: f64,
+    ) -> Result<Self, SpecError> {
         check_range_open_min("forcing.s0_w_m2", s0_w_m2, 0.0, 1e6)?;
         check_range("forcing.s2", s2, -2.0, 1.0)?;
-        Self::from_fn(grid, steps, year_s, |x, _| (s0_w_m2 / 4.0 * (1.0 + s2 * 0.5 * (3.0 * x * x - 1.0))).max(0.0))
+        Self::from_fn(grid, steps, year_s, |x, _| {
+            (s0_w_m2 / 4.0 * (1.0 + s2 * 0.5 * (3.0 * x * x - 1.0))).max(0.0)
+        })
     }
 
     /// The same table with every band held at its annual mean (for annual-mean models).
@@ -140,7 +177,10 @@ impl BandInsolation {
         for _ in 0..self.steps {
             w_m2.extend_from_slice(&mean);
         }
-        BandInsolation { w_m2, ..self.clone() }
+        BandInsolation {
+            w_m2,
+            ..self.clone()
+        }
     }
 
     /// Annual mean insolation of each band, W m⁻².
@@ -179,7 +219,14 @@ impl BandInsolation {
 /// Test helper: the forcing of a Keplerian orbit (eccentricity `e`, obliquity, sun longitude
 /// at perihelion `peri_deg`), `n` samples evenly in time starting at perihelion.
 #[cfg(test)]
-pub(crate) fn kepler_forcing(s0: f64, e: f64, obliquity_deg: f64, peri_deg: f64, year_s: f64, n: usize) -> AnnualForcing {
+pub(crate) fn kepler_forcing(
+    s0: f64,
+    e: f64,
+    obliquity_deg: f64,
+    peri_deg: f64,
+    year_s: f64,
+    n: usize,
+) -> AnnualForcing {
     use std::f64::consts::TAU;
     let eps = obliquity_deg.to_radians();
     let samples = (0..n)
@@ -198,7 +245,11 @@ pub(crate) fn kepler_forcing(s0: f64, e: f64, obliquity_deg: f64, peri_deg: f64,
             }
         })
         .collect();
-    AnnualForcing { s0_w_m2: s0, year_s, samples }
+    AnnualForcing {
+        s0_w_m2: s0,
+        year_s,
+        samples,
+    }
 }
 
 #[cfg(test)]
@@ -237,7 +288,10 @@ mod tests {
         f.samples[3].distance_factor = f64::NAN;
         let err = f.validate().unwrap_err();
         assert_eq!(err.field(), Some("forcing.samples[3].distance_factor"));
-        let empty = AnnualForcing { samples: vec![], ..f };
+        let empty = AnnualForcing {
+            samples: vec![],
+            ..f
+        };
         assert!(empty.validate().is_err());
     }
 

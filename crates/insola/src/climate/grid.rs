@@ -18,10 +18,16 @@ impl ClimateGrid {
     pub fn new(bands: usize) -> Result<Self, SpecError> {
         check_range("climate.bands", bands as f64, 2.0, 2000.0)?;
         let dx = 2.0 / bands as f64;
-        let x_edges: Vec<f64> = (0..=bands).map(|j| (-1.0 + j as f64 * dx).clamp(-1.0, 1.0)).collect();
+        let x_edges: Vec<f64> = (0..=bands)
+            .map(|j| (-1.0 + j as f64 * dx).clamp(-1.0, 1.0))
+            .collect();
         let x_centres: Vec<f64> = (0..bands).map(|j| -1.0 + (j as f64 + 0.5) * dx).collect();
         let lat_centres_rad = x_centres.iter().map(|x| x.asin()).collect();
-        Ok(ClimateGrid { x_edges, x_centres, lat_centres_rad })
+        Ok(ClimateGrid {
+            x_edges,
+            x_centres,
+            lat_centres_rad,
+        })
     }
 
     /// Number of bands.
@@ -68,7 +74,11 @@ impl ClimateGrid {
     pub fn band_of(&self, lat_rad: f64) -> usize {
         let x = lat_rad.sin();
         let j = ((x + 1.0) / self.dx()).floor();
-        if j.is_nan() { 0 } else { (j.max(0.0) as usize).min(self.len() - 1) }
+        if j.is_nan() {
+            0
+        } else {
+            (j.max(0.0) as usize).min(self.len() - 1)
+        }
     }
 
     /// Linear interpolation in `x` between band centres: `(i0, i1, w)` such that the value at
@@ -78,7 +88,11 @@ impl ClimateGrid {
     pub fn interpolation(&self, lat_rad: f64) -> (usize, usize, f64) {
         let n = self.len();
         let s = (lat_rad.sin() + 1.0) / self.dx() - 0.5; // fractional centre index
-        let s = if s.is_nan() { 0.0 } else { s.clamp(-0.5, n as f64 - 0.5) };
+        let s = if s.is_nan() {
+            0.0
+        } else {
+            s.clamp(-0.5, n as f64 - 0.5)
+        };
         let i0 = (s.floor().max(0.0) as usize).min(n - 2);
         (i0, i0 + 1, s - i0 as f64)
     }
@@ -115,7 +129,10 @@ mod tests {
         for lat_deg in [-90.0, -89.0, -45.0, 0.0, 12.0, 60.0, 88.0, 90.0] {
             let lat = f64::to_radians(lat_deg);
             let got = g.interpolate(&v, lat);
-            assert!((got - (3.0 * lat.sin() - 1.0)).abs() < 1e-12, "{lat_deg}: {got}");
+            assert!(
+                (got - (3.0 * lat.sin() - 1.0)).abs() < 1e-12,
+                "{lat_deg}: {got}"
+            );
         }
     }
 

@@ -94,20 +94,48 @@ pub struct ClimateInstant<'a> {
 impl ClimateCycle {
     /// Prepares queries at `year_fraction` for a world whose mean solar day lasts
     /// `solar_day_s` seconds (finite, > 0).
-    pub fn instant(&self, year_fraction: f64, solar_day_s: f64) -> Result<ClimateInstant<'_>, QueryError> {
-        check_arg("year_fraction", year_fraction, f64::MIN, f64::MAX, "a finite number")?;
-        check_arg("solar_day_s", solar_day_s, f64::MIN_POSITIVE, f64::MAX, "greater than 0, finite")?;
+    pub fn instant(
+        &self,
+        year_fraction: f64,
+        solar_day_s: f64,
+    ) -> Result<ClimateInstant<'_>, QueryError> {
+        check_arg(
+            "year_fraction",
+            year_fraction,
+            f64::MIN,
+            f64::MAX,
+            "a finite number",
+        )?;
+        check_arg(
+            "solar_day_s",
+            solar_day_s,
+            f64::MIN_POSITIVE,
+            f64::MAX,
+            "greater than 0, finite",
+        )?;
         let (k0, k1, wt) = periodic_index(year_fraction, self.steps);
         let (decl_rad, flux_w_m2) = match &self.forcing {
             Some(f) => {
                 let s = f.sample_at(year_fraction);
-                (s.declination_rad, f.s0_w_m2 / (s.distance_factor * s.distance_factor))
+                (
+                    s.declination_rad,
+                    f.s0_w_m2 / (s.distance_factor * s.distance_factor),
+                )
             }
             None => (0.0, 0.0),
         };
         let omega = TAU / solar_day_s;
-        let kappa = self.spec.diurnal_damping_w_m2_per_k / (omega * self.spec.surface_heat_capacity_j_m2_per_k);
-        Ok(ClimateInstant { cycle: self, k0, k1, wt, decl_rad, flux_w_m2, kappa })
+        let kappa = self.spec.diurnal_damping_w_m2_per_k
+            / (omega * self.spec.surface_heat_capacity_j_m2_per_k);
+        Ok(ClimateInstant {
+            cycle: self,
+            k0,
+            k1,
+            wt,
+            decl_rad,
+            flux_w_m2,
+            kappa,
+        })
     }
 
     /// Local temperature, °C, at latitude `lat_rad`, `year_fraction`, local hour angle of the
@@ -121,7 +149,11 @@ impl ClimateCycle {
         elevation_m: f64,
         solar_day_s: f64,
     ) -> Result<f64, QueryError> {
-        self.instant(year_fraction, solar_day_s)?.temperature_c(lat_rad, hour_angle_rad, elevation_m)
+        self.instant(year_fraction, solar_day_s)?.temperature_c(
+            lat_rad,
+            hour_angle_rad,
+            elevation_m,
+        )
     }
 }
 
@@ -145,10 +177,21 @@ impl ClimateInstant<'_> {
 
     /// Day-night deviation at `lat_rad` and hour angle `hour_angle_rad`, K (zero-mean over a day).
     pub fn diurnal_deviation_k(&self, lat_rad: f64, hour_angle_rad: f64) -> f64 {
+        self.deviation_with_zonal(lat_rad, hour_angle_rad, self.zonal_temperature_c(lat_rad))
+    }
+
+    /// Day-night deviation when the zonal temperature (which sets the ice state) is known.
+    fn deviation_with_zonal(&self, lat_rad: f64, hour_angle_rad: f64, zonal: f64) -> f64 {
         let spec = &self.cycle.spec;
-        let zonal = self.zonal_temperature_c(lat_rad);
+        if self.flux_w_m2 == 0.0 {
+            return 0.0;
+        }
         let iced = spec.ice_enabled && zonal < spec.ice_temperature_c;
-        let coalbedo = if iced { 1.0 - spec.ice_albedo } else { 1.0 - spec.ice_free_albedo(lat_rad.sin()) };
+        let coalbedo = if iced {
+            1.0 - spec.ice_albedo
+        } else {
+            1.0 - spec.ice_free_albedo(lat_rad.sin())
+        };
         diurnal_deviation_k(
             lat_rad,
             self.decl_rad,
@@ -162,16 +205,28 @@ impl ClimateInstant<'_> {
     /// Local temperature, °C: zonal + day-night deviation − lapse rate × elevation, floored at
     /// absolute zero. Errors on latitude outside ±π/2, non-finite hour angle, or elevation
     /// outside ±100 km.
-    pub fn temperature_c(&self, lat_rad: f64, hour_angle_rad: f64, elevation_m: f64) -> Result<f64, QueryError> {
+    pub fn temperature_c(
+        &self,
+        lat_rad: f64,
+        hour_angle_rad: f64,
+        elevation_m: f64,
+    ) -> Result<f64, QueryError> {
         check_arg("lat_rad", lat_rad, -FRAC_PI_2, FRAC_PI_2, "-π/2 to π/2")?;
-        check_arg("hour_angle_rad", hour_angle_rad, f64::MIN, f64::MAX, "a finite number")?;
+        check_arg(
+            "hour_angle_rad",
+            hour_angle_rad,
+            f64::MIN,
+            f64::MAX,
+            "a finite number",
+        )?;
         check_arg("elevation_m", elevation_m, -1e5, 1e5, "-100000 to 100000")?;
         Ok(self.temperature_unchecked(lat_rad, hour_angle_rad, elevation_m))
     }
 
     fn temperature_unchecked(&self, lat_rad: f64, hour_angle_rad: f64, elevation_m: f64) -> f64 {
         let lapse = self.cycle.spec.lapse_rate_k_per_km * elevation_m / 1000.0;
-        let t = self.zonal_temperature_c(lat_rad) + self.diurnal_deviation_k(lat_rad, hour_angle_rad) - lapse;
+        let zonal = self.zonal_temperature_c(lat_rad);
+        let t = zonal + self.deviation_with_zonal(lat_rad, hour_angle_rad, zonal) - lapse;
         t.max(ABSOLUTE_ZERO_C)
     }
 
@@ -186,19 +241,29 @@ impl ClimateInstant<'_> {
         out: &mut [f64],
     ) -> Result<(), QueryError> {
         let n = lats_rad.len();
-        for (name, len) in [("hour_angles_rad.len()", hour_angles_rad.len()), ("elevations_m.len()", elevations_m.len()), ("out.len()", out.len())] {
+        for (name, len) in [
+            ("hour_angles_rad.len()", hour_angles_rad.len()),
+            ("elevations_m.len()", elevations_m.len()),
+            ("out.len()", out.len()),
+        ] {
             if len != n {
-                return Err(QueryError::OutOfRange { name, value: len as f64, allowed: "the same length as lats_rad" });
+                return Err(QueryError::OutOfRange {
+                    name,
+                    value: len as f64,
+                    allowed: "the same length as lats_rad",
+                });
             }
         }
-        out.par_chunks_mut(BATCH_CHUNK).enumerate().try_for_each(|(c, chunk)| {
-            let start = c * BATCH_CHUNK;
-            for (i, o) in chunk.iter_mut().enumerate() {
-                let p = start + i;
-                *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
-            }
-            Ok(())
-        })
+        out.par_chunks_mut(BATCH_CHUNK)
+            .enumerate()
+            .try_for_each(|(c, chunk)| {
+                let start = c * BATCH_CHUNK;
+                for (i, o) in chunk.iter_mut().enumerate() {
+                    let p = start + i;
+                    *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
+                }
+                Ok(())
+            })
     }
 }
 
@@ -217,7 +282,8 @@ mod tests {
             for (i, o) in out.iter_mut().enumerate() {
                 let h = -PI + i as f64 * dh;
                 *o = t;
-                let q = |hh: f64| s * crate::insolation::instantaneous_w_m2(1.0, lat, decl, hh, 1.0);
+                let q =
+                    |hh: f64| s * crate::insolation::instantaneous_w_m2(1.0, lat, decl, hh, 1.0);
                 // dT/dH = κ ((q − q̄)/λ − T), midpoint rule.
                 let f = |hh: f64, tt: f64| kappa * ((q(hh) - qbar) / lambda - tt);
                 let k1 = f(h, t);
@@ -230,13 +296,22 @@ mod tests {
     #[test]
     fn exact_periodic_solution_matches_direct_integration() {
         // Computed: forward integration of the same linear equation (regression of the formula).
-        for (lat_deg, decl_deg, kappa) in [(0.0, 0.0, 0.1), (45.0, 20.0, 2.0), (70.0, 23.0, 0.5), (-30.0, 10.0, 8.0)] {
+        for (lat_deg, decl_deg, kappa) in [
+            (0.0, 0.0, 0.1),
+            (45.0, 20.0, 2.0),
+            (70.0, 23.0, 0.5),
+            (-30.0, 10.0, 8.0),
+        ] {
             let (lat, decl) = (f64::to_radians(lat_deg), f64::to_radians(decl_deg));
             let series = integrate(lat, decl, 900.0, 10.0, kappa);
             for i in (0..series.len()).step_by(1000) {
                 let h = -PI + i as f64 * TAU / series.len() as f64;
                 let exact = diurnal_deviation_k(lat, decl, h, 900.0, 10.0, kappa);
-                assert!((exact - series[i]).abs() < 2e-3 * (1.0 + exact.abs()), "{lat_deg} {h}: {exact} vs {}", series[i]);
+                assert!(
+                    (exact - series[i]).abs() < 2e-3 * (1.0 + exact.abs()),
+                    "{lat_deg} {h}: {exact} vs {}",
+                    series[i]
+                );
             }
         }
     }
@@ -245,13 +320,18 @@ mod tests {
     fn slow_rotators_swing_more_and_the_mean_is_zero() {
         let (lat, decl) = (0.3, 0.1);
         let swing = |kappa: f64| {
-            let v: Vec<f64> = (0..720).map(|i| diurnal_deviation_k(lat, decl, i as f64 * TAU / 720.0, 900.0, 10.0, kappa)).collect();
+            let v: Vec<f64> = (0..720)
+                .map(|i| diurnal_deviation_k(lat, decl, i as f64 * TAU / 720.0, 900.0, 10.0, kappa))
+                .collect();
             let mean = v.iter().sum::<f64>() / v.len() as f64;
             assert!(mean.abs() < 0.05, "mean {mean} at κ {kappa}");
             v.iter().copied().fold(f64::MIN, f64::max) - v.iter().copied().fold(f64::MAX, f64::min)
         };
         let (fast, earthlike, slow) = (swing(0.01), swing(0.1), swing(50.0));
-        assert!(fast < earthlike && earthlike < slow, "{fast} {earthlike} {slow}");
+        assert!(
+            fast < earthlike && earthlike < slow,
+            "{fast} {earthlike} {slow}"
+        );
         // Slow limit: T' → a(Q − Q̄)/λ; swing = 900·(sin φ sin δ + cos φ cos δ)/10 (computed).
         let limit = 900.0 * (lat.sin() * decl.sin() + lat.cos() * decl.cos()) / 10.0;
         assert!((slow - limit).abs() < 0.05 * limit, "{slow} vs {limit}");

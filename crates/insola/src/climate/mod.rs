@@ -23,7 +23,7 @@
 //! poles), backward Euler on diffusion and `B·T`, co-albedo from the previous step
 //! (semi-implicit ice albedo), one constant tridiagonal matrix factorised once. Stable for any
 //! heat capacity and step. The periodic year is found by [`equilibrate`] (see
-//! [`equilibrium`](self#convergence) below), giving a [`ClimateCycle`].
+//! [Convergence](#convergence) below), giving a [`ClimateCycle`].
 //!
 //! # Convergence
 //!

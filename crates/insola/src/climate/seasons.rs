@@ -97,7 +97,11 @@ impl BandPhase {
 
     /// The season at `year_fraction` (see the module docs for the rule).
     pub fn season_at(&self, year_fraction: f64) -> Season {
-        let f = if year_fraction.is_finite() { year_fraction } else { 0.0 };
+        let f = if year_fraction.is_finite() {
+            year_fraction
+        } else {
+            0.0
+        };
         let cycle = match self.summers_per_year() {
             0 => return Season::Steady,
             1 => (f - self.annual_peak_year_fraction).rem_euclid(1.0),
@@ -138,13 +142,20 @@ impl ClimateCycle {
 
     /// Ice zone per band, south to north.
     pub fn zones(&self) -> Vec<ClimateZone> {
-        self.stats.iter().map(|s| ClimateZone::from_ice_fraction(s.ice_fraction_of_year)).collect()
+        self.stats
+            .iter()
+            .map(|s| ClimateZone::from_ice_fraction(s.ice_fraction_of_year))
+            .collect()
     }
 
     /// A short plain-words summary per band for designers, south to north, e.g.
     /// `"mild, ice-free, mean 12 °C, 14 °C swing, frost-free"`.
     pub fn band_summaries(&self) -> Vec<String> {
-        self.stats.iter().zip(&self.phases).map(|(s, p)| describe(s, p)).collect()
+        self.stats
+            .iter()
+            .zip(&self.phases)
+            .map(|(s, p)| describe(s, p))
+            .collect()
     }
 }
 
@@ -161,7 +172,9 @@ pub fn describe(stats: &BandStats, phase: &BandPhase) -> String {
     };
     let ice = match ClimateZone::from_ice_fraction(stats.ice_fraction_of_year) {
         ClimateZone::PermanentIce => "ice all year".to_string(),
-        ClimateZone::SeasonalIce => format!("ice {:.0}% of the year", 100.0 * stats.ice_fraction_of_year),
+        ClimateZone::SeasonalIce => {
+            format!("ice {:.0}% of the year", 100.0 * stats.ice_fraction_of_year)
+        }
         ClimateZone::IceFree => "ice-free".to_string(),
     };
     let frost = if stats.min_c > 0.0 {
@@ -205,7 +218,9 @@ mod tests {
 
     #[test]
     fn two_summers_when_the_half_year_harmonic_leads() {
-        let p = BandPhase::from_column(&column(|f| 5.0 + 6.0 * (2.0 * TAU * f).cos() + (TAU * f).cos()));
+        let p = BandPhase::from_column(&column(|f| {
+            5.0 + 6.0 * (2.0 * TAU * f).cos() + (TAU * f).cos()
+        }));
         assert_eq!(p.summers_per_year(), 2);
         assert_eq!(p.season_at(0.0), Season::Summer);
         assert_eq!(p.season_at(0.5), Season::Summer);
@@ -217,15 +232,30 @@ mod tests {
     fn flat_cycle_is_steady_and_zones_follow_ice_fraction() {
         let p = BandPhase::from_column(&column(|_| 3.0));
         assert_eq!(p.season_at(0.3), Season::Steady);
-        assert_eq!(ClimateZone::from_ice_fraction(1.0), ClimateZone::PermanentIce);
-        assert_eq!(ClimateZone::from_ice_fraction(0.2), ClimateZone::SeasonalIce);
+        assert_eq!(
+            ClimateZone::from_ice_fraction(1.0),
+            ClimateZone::PermanentIce
+        );
+        assert_eq!(
+            ClimateZone::from_ice_fraction(0.2),
+            ClimateZone::SeasonalIce
+        );
         assert_eq!(ClimateZone::from_ice_fraction(0.0), ClimateZone::IceFree);
     }
 
     #[test]
     fn summary_reads_plainly() {
-        let s = BandStats { lat_rad: 0.0, mean_c: 12.0, min_c: 5.0, max_c: 19.0, ice_fraction_of_year: 0.0 };
+        let s = BandStats {
+            lat_rad: 0.0,
+            mean_c: 12.0,
+            min_c: 5.0,
+            max_c: 19.0,
+            ice_fraction_of_year: 0.0,
+        };
         let p = BandPhase::from_column(&column(|f| 12.0 + 7.0 * (TAU * f).cos()));
-        assert_eq!(describe(&s, &p), "mild, ice-free, mean 12 °C, 14 °C swing, frost-free");
+        assert_eq!(
+            describe(&s, &p),
+            "mild, ice-free, mean 12 °C, 14 °C swing, frost-free"
+        );
     }
 }

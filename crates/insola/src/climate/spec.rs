@@ -137,22 +137,68 @@ impl ClimateSpec {
     /// Checks every field; errors name the field as `{path}.{field}` (or just the field when
     /// `path` is empty), the value and the allowed range. NaN and infinities are rejected.
     pub fn validate(&self, path: &str) -> Result<(), SpecError> {
-        let f = |name: &str| if path.is_empty() { name.to_string() } else { format!("{path}.{name}") };
+        let f = |name: &str| {
+            if path.is_empty() {
+                name.to_string()
+            } else {
+                format!("{path}.{name}")
+            }
+        };
         check_range(&f("bands"), self.bands as f64, 4.0, 2000.0)?;
-        check_range(&f("steps_per_year"), self.steps_per_year as f64, 8.0, 100_000.0)?;
-        check_range(&f("mixed_layer_depth_m"), self.mixed_layer_depth_m, 0.0, 10_000.0)?;
+        check_range(
+            &f("steps_per_year"),
+            self.steps_per_year as f64,
+            8.0,
+            100_000.0,
+        )?;
+        check_range(
+            &f("mixed_layer_depth_m"),
+            self.mixed_layer_depth_m,
+            0.0,
+            10_000.0,
+        )?;
         check_range(&f("land_fraction"), self.land_fraction, 0.0, 1.0)?;
-        check_range(&f("land_heat_capacity_j_m2_per_k"), self.land_heat_capacity_j_m2_per_k, 0.0, 1e11)?;
+        check_range(
+            &f("land_heat_capacity_j_m2_per_k"),
+            self.land_heat_capacity_j_m2_per_k,
+            0.0,
+            1e11,
+        )?;
         check_range(&f("olr_a_w_m2"), self.olr_a_w_m2, 0.0, 2000.0)?;
         check_range(&f("olr_b_w_m2_per_k"), self.olr_b_w_m2_per_k, 0.1, 50.0)?;
-        check_range(&f("diffusion_w_m2_per_k"), self.diffusion_w_m2_per_k, 0.0, 100.0)?;
+        check_range(
+            &f("diffusion_w_m2_per_k"),
+            self.diffusion_w_m2_per_k,
+            0.0,
+            100.0,
+        )?;
         check_range(&f("albedo_a0"), self.albedo_a0, 0.0, 1.0)?;
         check_range(&f("albedo_a2"), self.albedo_a2, -1.0, 1.0)?;
         check_range(&f("ice_albedo"), self.ice_albedo, 0.0, 1.0)?;
-        check_range(&f("ice_temperature_c"), self.ice_temperature_c, -150.0, 100.0)?;
-        check_range_open_min(&f("surface_heat_capacity_j_m2_per_k"), self.surface_heat_capacity_j_m2_per_k, 0.0, 1e11)?;
-        check_range_open_min(&f("diurnal_damping_w_m2_per_k"), self.diurnal_damping_w_m2_per_k, 0.0, 1000.0)?;
-        check_range(&f("lapse_rate_k_per_km"), self.lapse_rate_k_per_km, 0.0, 30.0)?;
+        check_range(
+            &f("ice_temperature_c"),
+            self.ice_temperature_c,
+            -150.0,
+            100.0,
+        )?;
+        check_range_open_min(
+            &f("surface_heat_capacity_j_m2_per_k"),
+            self.surface_heat_capacity_j_m2_per_k,
+            0.0,
+            1e11,
+        )?;
+        check_range_open_min(
+            &f("diurnal_damping_w_m2_per_k"),
+            self.diurnal_damping_w_m2_per_k,
+            0.0,
+            1000.0,
+        )?;
+        check_range(
+            &f("lapse_rate_k_per_km"),
+            self.lapse_rate_k_per_km,
+            0.0,
+            30.0,
+        )?;
         check_range(&f("max_years"), f64::from(self.max_years), 1.0, 100_000.0)?;
         check_range_open_min(&f("tolerance_k"), self.tolerance_k, 0.0, 10.0)?;
         // P2 spans [−1/2, 1]: the ice-free albedo must stay in [0, 1] at equator and pole.
@@ -192,7 +238,10 @@ mod tests {
 
     #[test]
     fn bad_value_names_field_value_and_range() {
-        let spec = ClimateSpec { diffusion_w_m2_per_k: -1.0, ..ClimateSpec::default() };
+        let spec = ClimateSpec {
+            diffusion_w_m2_per_k: -1.0,
+            ..ClimateSpec::default()
+        };
         let err = spec.validate("climate").unwrap_err();
         assert_eq!(err.field(), Some("climate.diffusion_w_m2_per_k"));
         let text = err.to_string();
@@ -202,7 +251,10 @@ mod tests {
     #[test]
     fn nan_and_infinity_are_rejected() {
         for v in [f64::NAN, f64::INFINITY, f64::NEG_INFINITY] {
-            let spec = ClimateSpec { olr_b_w_m2_per_k: v, ..ClimateSpec::default() };
+            let spec = ClimateSpec {
+                olr_b_w_m2_per_k: v,
+                ..ClimateSpec::default()
+            };
             let err = spec.validate("climate").unwrap_err();
             assert_eq!(err.field(), Some("climate.olr_b_w_m2_per_k"));
         }
@@ -210,14 +262,19 @@ mod tests {
 
     #[test]
     fn albedo_out_of_unit_range_is_inconsistent() {
-        let spec = ClimateSpec { albedo_a0: 0.9, albedo_a2: 0.5, ..ClimateSpec::default() };
+        let spec = ClimateSpec {
+            albedo_a0: 0.9,
+            albedo_a2: 0.5,
+            ..ClimateSpec::default()
+        };
         let err = spec.validate("").unwrap_err();
         assert_eq!(err.field(), Some("albedo_a2"));
     }
 
     #[test]
     fn ron_partial_section_uses_defaults_and_rejects_unknown_fields() {
-        let spec: ClimateSpec = ron::from_str("(mixed_layer_depth_m: 50.0, ice_enabled: false)").unwrap();
+        let spec: ClimateSpec =
+            ron::from_str("(mixed_layer_depth_m: 50.0, ice_enabled: false)").unwrap();
         assert_eq!(spec.mixed_layer_depth_m, 50.0);
         assert!(!spec.ice_enabled);
         assert_eq!(spec.bands, 90);

@@ -17,7 +17,11 @@ fn earth_like_forcing(obliquity_deg: f64) -> AnnualForcing {
 
 fn model(spec: &ClimateSpec, forcing: &AnnualForcing) -> EnergyBalanceModel {
     let grid = ClimateGrid::new(spec.bands).unwrap();
-    EnergyBalanceModel::new(spec, BandInsolation::from_forcing(forcing, &grid, spec.steps_per_year).unwrap()).unwrap()
+    EnergyBalanceModel::new(
+        spec,
+        BandInsolation::from_forcing(forcing, &grid, spec.steps_per_year).unwrap(),
+    )
+    .unwrap()
 }
 
 /// Amplitude (K) and lag (days) of the first-Legendre-mode temperature under the forcing
@@ -36,16 +40,30 @@ fn p1_response(depth_m: f64) -> (f64, f64) {
     };
     let grid = ClimateGrid::new(spec.bands).unwrap();
     let s11 = 2.0 * 23.44f64.to_radians().sin();
-    let ins = BandInsolation::from_fn(&grid, spec.steps_per_year, YEAR_S, |x, f| 340.25 * (1.0 + s11 * (TAU * f).cos() * x)).unwrap();
+    let ins = BandInsolation::from_fn(&grid, spec.steps_per_year, YEAR_S, |x, f| {
+        340.25 * (1.0 + s11 * (TAU * f).cos() * x)
+    })
+    .unwrap();
     let m = EnergyBalanceModel::new(&spec, ins).unwrap();
     let cycle = equilibrate_model(&m, None, &Start::SteadyAnnualMean).unwrap();
     let xs = grid.x_centres();
     let sxx: f64 = xs.iter().map(|x| x * x).sum();
     let t1: Vec<f64> = (0..cycle.steps())
-        .map(|k| cycle.temperatures_c(k).iter().zip(xs).map(|(t, x)| t * x).sum::<f64>() / sxx)
+        .map(|k| {
+            cycle
+                .temperatures_c(k)
+                .iter()
+                .zip(xs)
+                .map(|(t, x)| t * x)
+                .sum::<f64>()
+                / sxx
+        })
         .collect();
     let phase = BandPhase::from_column(&t1);
-    (phase.annual_amplitude_k, phase.annual_peak_year_fraction * 365.25)
+    (
+        phase.annual_amplitude_k,
+        phase.annual_peak_year_fraction * 365.25,
+    )
 }
 
 #[test]
@@ -60,12 +78,22 @@ fn linear_seasonal_response_of_the_first_legendre_mode() {
         let c = 1000.0 * 4181.3 * depth;
         let w = TAU / YEAR_S;
         let k = 2.0 + 2.0 * 0.555;
-        let amp = 340.25 * 0.7 * 2.0 * 23.44f64.to_radians().sin() / (k * k + (w * c) * (w * c)).sqrt();
+        let amp =
+            340.25 * 0.7 * 2.0 * 23.44f64.to_radians().sin() / (k * k + (w * c) * (w * c)).sqrt();
         let lag_d = (w * c / k).atan() / w / 86400.0;
-        assert!((amp - want_amp).abs() < 0.06 && (lag_d - want_lag).abs() < 0.6, "formula {amp} {lag_d}");
+        assert!(
+            (amp - want_amp).abs() < 0.06 && (lag_d - want_lag).abs() < 0.6,
+            "formula {amp} {lag_d}"
+        );
         let (got_amp, got_lag) = p1_response(depth);
-        assert!((got_amp / amp - 1.0).abs() < 0.02, "{depth} m: amplitude {got_amp} vs {amp}");
-        assert!((got_lag - lag_d).abs() < 1.5, "{depth} m: lag {got_lag} vs {lag_d}");
+        assert!(
+            (got_amp / amp - 1.0).abs() < 0.02,
+            "{depth} m: amplitude {got_amp} vs {amp}"
+        );
+        assert!(
+            (got_lag - lag_d).abs() < 1.5,
+            "{depth} m: lag {got_lag} vs {lag_d}"
+        );
     }
 }
 
@@ -75,25 +103,51 @@ fn step_ice_albedo_edges_near_seventy_degrees_and_snowball_at_1200() {
     // ±70° (on a 2° grid, so ±2°), and with S0 = 1200 W m⁻² it freezes over (ice edge 0°).
     let spec = ClimateSpec::climlab_defaults();
     let grid = ClimateGrid::new(spec.bands).unwrap();
-    let annual = BandInsolation::from_forcing(&earth_like_forcing(23.446), &grid, spec.steps_per_year).unwrap().annual_mean();
+    let annual =
+        BandInsolation::from_forcing(&earth_like_forcing(23.446), &grid, spec.steps_per_year)
+            .unwrap()
+            .annual_mean();
     // The ice-free branch also exists for these values (its pole sits just above −10 °C), so
     // start, like climlab, from the cold-pole state 12 − 40·P2(x) °C (climlab's default initial
     // temperature, from memory); the ice cap then holds itself by the ice-albedo feedback.
-    let start: Vec<f64> = grid.x_centres().iter().map(|x| 12.0 - 40.0 * 0.5 * (3.0 * x * x - 1.0)).collect();
-    let cycle = equilibrate_model(&EnergyBalanceModel::new(&spec, annual).unwrap(), None, &Start::Given(start)).unwrap();
+    let start: Vec<f64> = grid
+        .x_centres()
+        .iter()
+        .map(|x| 12.0 - 40.0 * 0.5 * (3.0 * x * x - 1.0))
+        .collect();
+    let cycle = equilibrate_model(
+        &EnergyBalanceModel::new(&spec, annual).unwrap(),
+        None,
+        &Start::Given(start),
+    )
+    .unwrap();
     let edges = cycle.ice_edges();
-    let (n, s) = (edges.north_lat_rad.unwrap().to_degrees(), edges.south_lat_rad.unwrap().to_degrees());
-    assert!((n - 70.0).abs() < 2.5 && (s + 70.0).abs() < 2.5, "edges {n} {s}");
+    let (n, s) = (
+        edges.north_lat_rad.unwrap().to_degrees(),
+        edges.south_lat_rad.unwrap().to_degrees(),
+    );
+    assert!(
+        (n - 70.0).abs() < 2.5 && (s + 70.0).abs() < 2.5,
+        "edges {n} {s}"
+    );
 
     let dim = kepler_forcing(1200.0, 0.017236, 23.446, 281.37, YEAR_S, 360);
-    let annual = BandInsolation::from_forcing(&dim, &grid, spec.steps_per_year).unwrap().annual_mean();
+    let annual = BandInsolation::from_forcing(&dim, &grid, spec.steps_per_year)
+        .unwrap()
+        .annual_mean();
     let m = EnergyBalanceModel::new(&spec, annual).unwrap();
     let cold = match equilibrate_model(&m, None, &Start::Uniform(10.0)) {
         Ok(c) => c,
         Err(e) => panic!("{e}"),
     };
     assert_eq!(cold.ice_area_fraction(), 1.0);
-    assert_eq!(cold.ice_edges(), IceEdges { north_lat_rad: None, south_lat_rad: None });
+    assert_eq!(
+        cold.ice_edges(),
+        IceEdges {
+            north_lat_rad: None,
+            south_lat_rad: None
+        }
+    );
 }
 
 #[test]
@@ -102,7 +156,11 @@ fn seasonal_default_world_converges_and_repeats() {
     let forcing = earth_like_forcing(23.446);
     let cycle = equilibrate(&spec, &forcing).unwrap();
     assert!(cycle.converged() && cycle.residual_k() < 0.01);
-    assert!(cycle.years_to_equilibrium() >= 1 && cycle.years_to_equilibrium() < 40, "{}", cycle.years_to_equilibrium());
+    assert!(
+        cycle.years_to_equilibrium() >= 1 && cycle.years_to_equilibrium() < 40,
+        "{}",
+        cycle.years_to_equilibrium()
+    );
     // Run one more year from the stored start and compare at every phase.
     let m = model(&spec, &forcing);
     let nb = m.grid().len();
@@ -137,15 +195,25 @@ fn high_tilt_warm_poles_and_two_equatorial_summers() {
     for tilt in [60.0, 90.0] {
         // Constant ice-free albedo: the default a2 term brightens the poles as on Earth, which
         // is tied to Earth's own sunlight geometry and would hide the effect.
-        let spec = ClimateSpec { ice_enabled: false, albedo_a2: 0.0, ..ClimateSpec::default() };
-        let cycle = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
+        let spec = ClimateSpec {
+            ice_enabled: false,
+            albedo_a2: 0.0,
+            ..ClimateSpec::default()
+        };
+        let cycle =
+            equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
         let stats = cycle.band_stats();
         let eq = &stats[stats.len() / 2];
-        assert!(stats[0].mean_c > eq.mean_c && stats[stats.len() - 1].mean_c > eq.mean_c, "tilt {tilt}");
+        assert!(
+            stats[0].mean_c > eq.mean_c && stats[stats.len() - 1].mean_c > eq.mean_c,
+            "tilt {tilt}"
+        );
         let phase = cycle.band_phases()[stats.len() / 2];
         assert_eq!(phase.summers_per_year(), 2, "tilt {tilt}: {phase:?}");
         // Sun longitude λ = v at perihelion 0: equinoxes at year fractions 0 and 0.5.
-        let summers = (0..8).filter(|&i| cycle.season(0.0, i as f64 / 8.0) == Season::Summer).count();
+        let summers = (0..8)
+            .filter(|&i| cycle.season(0.0, i as f64 / 8.0) == Season::Summer)
+            .count();
         assert_eq!(summers, 2, "tilt {tilt}");
     }
 }
@@ -163,7 +231,11 @@ fn any_tilt_and_an_eccentric_orbit_work() {
     }
     // Tilt ε and 180° − ε give the same sunlight (sin δ = sin ε sin λ), so the same climate.
     let a = equilibrate(&spec, &kepler_forcing(1365.2, 0.1, 30.0, 40.0, YEAR_S, 360)).unwrap();
-    let b = equilibrate(&spec, &kepler_forcing(1365.2, 0.1, 150.0, 40.0, YEAR_S, 360)).unwrap();
+    let b = equilibrate(
+        &spec,
+        &kepler_forcing(1365.2, 0.1, 150.0, 40.0, YEAR_S, 360),
+    )
+    .unwrap();
     for k in 0..a.steps() {
         for (x, y) in a.temperatures_c(k).iter().zip(b.temperatures_c(k)) {
             assert!((x - y).abs() < 1e-6);
@@ -178,7 +250,10 @@ fn any_tilt_and_an_eccentric_orbit_work() {
 
 #[test]
 fn circular_orbit_hemispheres_mirror_half_a_year_apart() {
-    let spec = ClimateSpec { bands: 60, ..ClimateSpec::default() };
+    let spec = ClimateSpec {
+        bands: 60,
+        ..ClimateSpec::default()
+    };
     let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, 23.44, 0.0, YEAR_S, 360)).unwrap();
     for lat in [0.2, 0.7, 1.2] {
         for f in [0.0, 0.25, 0.6] {
@@ -190,7 +265,10 @@ fn circular_orbit_hemispheres_mirror_half_a_year_apart() {
 
 #[test]
 fn bad_spec_is_an_error_naming_the_field() {
-    let spec = ClimateSpec { mixed_layer_depth_m: f64::NAN, ..ClimateSpec::default() };
+    let spec = ClimateSpec {
+        mixed_layer_depth_m: f64::NAN,
+        ..ClimateSpec::default()
+    };
     match equilibrate(&spec, &earth_like_forcing(23.44)) {
         Err(ClimateError::Spec(e)) => assert_eq!(e.field(), Some("climate.mixed_layer_depth_m")),
         other => panic!("{other:?}"),
@@ -205,7 +283,11 @@ fn bad_spec_is_an_error_naming_the_field() {
 
 #[test]
 fn not_converging_within_the_year_cap_is_a_typed_error() {
-    let spec = ClimateSpec { max_years: 1, mixed_layer_depth_m: 200.0, ..ClimateSpec::default() };
+    let spec = ClimateSpec {
+        max_years: 1,
+        mixed_layer_depth_m: 200.0,
+        ..ClimateSpec::default()
+    };
     match equilibrate(&spec, &earth_like_forcing(23.44)) {
         Err(ClimateError::NotConverged { years, last, .. }) => {
             assert_eq!(years, 1);
@@ -221,21 +303,32 @@ fn local_temperatures_day_night_and_elevation() {
     let c = equilibrate(&spec, &earth_like_forcing(23.44)).unwrap();
     let day_s = 86400.0;
     let noon = c.local_temperature_c(0.3, 0.4, 0.0, 0.0, day_s).unwrap();
-    let midnight = c.local_temperature_c(0.3, 0.4, std::f64::consts::PI, 0.0, day_s).unwrap();
+    let midnight = c
+        .local_temperature_c(0.3, 0.4, std::f64::consts::PI, 0.0, day_s)
+        .unwrap();
     let zonal = c.temperature_c(0.3, 0.4);
     assert!(noon > zonal && midnight < zonal);
     // Default surface layer: a few kelvin of day-night range for a 24 h day (common practice).
-    assert!(noon - midnight > 2.0 && noon - midnight < 20.0, "{}", noon - midnight);
+    assert!(
+        noon - midnight > 2.0 && noon - midnight < 20.0,
+        "{}",
+        noon - midnight
+    );
     // A slow rotator (60-day solar day) swings far more.
-    let slow = c.local_temperature_c(0.3, 0.4, 0.0, 0.0, 60.0 * day_s).unwrap()
-        - c.local_temperature_c(0.3, 0.4, std::f64::consts::PI, 0.0, 60.0 * day_s).unwrap();
+    let slow = c
+        .local_temperature_c(0.3, 0.4, 0.0, 0.0, 60.0 * day_s)
+        .unwrap()
+        - c.local_temperature_c(0.3, 0.4, std::f64::consts::PI, 0.0, 60.0 * day_s)
+            .unwrap();
     assert!(slow > 3.0 * (noon - midnight), "{slow}");
     // 2 km up: 13 K colder at the default 6.5 K/km.
     let high = c.local_temperature_c(0.3, 0.4, 0.0, 2000.0, day_s).unwrap();
     assert!((noon - high - 13.0).abs() < 1e-9);
     // Batch equals single queries; bad input is a typed error.
     let inst = c.instant(0.4, day_s).unwrap();
-    let lats: Vec<f64> = (0..10_000).map(|i| -1.5 + 3.0 * i as f64 / 10_000.0).collect();
+    let lats: Vec<f64> = (0..10_000)
+        .map(|i| -1.5 + 3.0 * i as f64 / 10_000.0)
+        .collect();
     let has: Vec<f64> = (0..10_000).map(|i| i as f64 * 0.37).collect();
     let elev = vec![100.0; 10_000];
     let mut out = vec![0.0; 10_000];
@@ -244,7 +337,10 @@ fn local_temperatures_day_night_and_elevation() {
         assert_eq!(out[i], inst.temperature_c(lats[i], has[i], 100.0).unwrap());
     }
     assert!(inst.temperature_c(2.0, 0.0, 0.0).is_err());
-    assert!(inst.temperatures_c(&lats, &has, &elev[..5], &mut out).is_err());
+    assert!(
+        inst.temperatures_c(&lats, &has, &elev[..5], &mut out)
+            .is_err()
+    );
     assert!(c.instant(0.1, 0.0).is_err());
 }
 
