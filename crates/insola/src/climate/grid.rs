@@ -86,8 +86,13 @@ impl ClimateGrid {
     /// poles) the line through the two outermost centres is extended, so `w` may leave [0, 1] by
     /// at most one half.
     pub fn interpolation(&self, lat_rad: f64) -> (usize, usize, f64) {
+        self.interpolation_x(lat_rad.sin())
+    }
+
+    /// [`Self::interpolation`] for a place given by `x = sin φ` (clamped to [−1, 1]).
+    pub fn interpolation_x(&self, x: f64) -> (usize, usize, f64) {
         let n = self.len();
-        let s = (lat_rad.sin() + 1.0) / self.dx() - 0.5; // fractional centre index
+        let s = (x + 1.0) / self.dx() - 0.5; // fractional centre index
         let s = if s.is_nan() {
             0.0
         } else {

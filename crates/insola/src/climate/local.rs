@@ -25,7 +25,6 @@ use rayon::prelude::*;
 use super::cycle::ClimateCycle;
 use super::forcing::periodic_index;
 use crate::error::{QueryError, check_arg};
-use crate::insolation::sunset_hour_angle_rad;
 
 /// Absolute zero, °C.
 const ABSOLUTE_ZERO_C: f64 = -273.15;
@@ -37,7 +36,8 @@ const BATCH_CHUNK: usize = 4096;
 /// hour angle `hour_angle_rad` (0 at local noon), for the star at declination `decl_rad`.
 ///
 /// `absorbed_peak_w_m2` is `a · S0/ρ²` (co-albedo times the flux at the planet), `kappa` is
-/// `λ/(ω C_s)` and `damping_w_m2_per_k` is `λ`. See the module docs for the solution.
+/// `λ/(ω C_s)` and `damping_w_m2_per_k` is `λ`. See the module docs for the solution; for many
+/// places at one instant use [`DiurnalResponse`].
 pub fn diurnal_deviation_k(
     lat_rad: f64,
     decl_rad: f64,
@@ -46,35 +46,94 @@ pub fn diurnal_deviation_k(
     damping_w_m2_per_k: f64,
     kappa: f64,
 ) -> f64 {
-    if !(kappa.is_finite() && kappa > 0.0) || TAU * kappa < 1e-12 {
-        // Infinite surface heat capacity or rate: no day-night deviation.
-        return 0.0;
-    }
     let (sp, cp) = lat_rad.sin_cos();
-    let (sd, cd) = decl_rad.sin_cos();
-    let (a, b) = (sp * sd, cp * cd);
-    let h0 = sunset_hour_angle_rad(lat_rad, decl_rad);
-    let f0 = (a * h0 + b * h0.sin()) / PI; // daily mean of max(0, a + b cos H)
-    let g = absorbed_peak_w_m2 / damping_w_m2_per_k;
-    // Daytime particular solution G[(a − f0) + b(r1 cos H + r2 sin H)], written to stay finite
-    // for κ → ∞ (r1 → 1, r2 → 0) and κ → 0.
-    let r1 = 1.0 / (1.0 + 1.0 / (kappa * kappa));
-    let r2 = 1.0 / (kappa + 1.0 / kappa);
-    let day = |h: f64| g * ((a - f0) + b * (r1 * h.cos() + r2 * h.sin()));
-    let night = -g * f0;
-    let e_day = (-2.0 * kappa * h0).exp();
-    let one_minus_e_night = -(-kappa * (TAU - 2.0 * h0)).exp_m1();
-    let e_night = 1.0 - one_minus_e_night;
-    let a_s = day(h0) - e_day * day(-h0);
-    let denom = -(-kappa * TAU).exp_m1();
-    let t_rise = (night * one_minus_e_night + e_night * a_s) / denom;
-    let t_set = a_s + e_day * t_rise;
-    let h = (hour_angle_rad + PI).rem_euclid(TAU) - PI;
-    if h.abs() <= h0 {
-        day(h) + (t_rise - day(-h0)) * (-kappa * (h + h0)).exp()
-    } else {
-        let since_sunset = (h - h0).rem_euclid(TAU);
-        night + (t_set - night) * (-kappa * since_sunset).exp()
+    DiurnalResponse::new(decl_rad, damping_w_m2_per_k, kappa).deviation_k(
+        sp,
+        cp,
+        hour_angle_rad,
+        absorbed_peak_w_m2,
+    )
+}
+
+/// The place-independent constants of the day-night response at one instant.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct DiurnalResponse {
+    sin_decl: f64,
+    cos_decl: f64,
+    kappa: f64,
+    /// `κ²/(κ² + 1)` and `κ/(κ² + 1)`, written to stay finite for κ → ∞ and κ → 0.
+    r1: f64,
+    r2: f64,
+    /// `1/(1 − e^(−2πκ))`.
+    inv_denom: f64,
+    inv_damping: f64,
+    /// False when the deviation is zero everywhere (κ not positive and finite, or negligible).
+    active: bool,
+}
+
+impl DiurnalResponse {
+    /// Constants for declination `decl_rad`, damping `λ` (W m⁻² K⁻¹) and `κ = λ/(ω C_s)`.
+    pub fn new(decl_rad: f64, damping_w_m2_per_k: f64, kappa: f64) -> Self {
+        let (sin_decl, cos_decl) = decl_rad.sin_cos();
+        // Infinite surface heat capacity or rate, or bad input: no day-night deviation.
+        let active = kappa.is_finite()
+            && TAU * kappa >= 1e-12
+            && damping_w_m2_per_k.is_finite()
+            && damping_w_m2_per_k > 0.0;
+        DiurnalResponse {
+            sin_decl,
+            cos_decl,
+            kappa,
+            r1: 1.0 / (1.0 + 1.0 / (kappa * kappa)),
+            r2: 1.0 / (kappa + 1.0 / kappa),
+            inv_denom: 1.0 / -(-kappa * TAU).exp_m1(),
+            inv_damping: 1.0 / damping_w_m2_per_k,
+            active,
+        }
+    }
+
+    /// Deviation, K, at a place given by the sine and cosine of its latitude, at hour angle
+    /// `hour_angle_rad`, for absorbed peak flux `absorbed_peak_w_m2` (co-albedo × S0/ρ²).
+    pub fn deviation_k(
+        &self,
+        sin_lat: f64,
+        cos_lat: f64,
+        hour_angle_rad: f64,
+        absorbed_peak_w_m2: f64,
+    ) -> f64 {
+        if !self.active {
+            return 0.0;
+        }
+        let kappa = self.kappa;
+        let (a, b) = (sin_lat * self.sin_decl, cos_lat * self.cos_decl);
+        // Sunset hour angle h0 from cos h0 = −a/b (Berger 1978, eqs. 8–9), with its sine.
+        let (h0, cos_h0, sin_h0) = if -a >= b {
+            (0.0, 1.0, 0.0)
+        } else if -a <= -b {
+            (PI, -1.0, 0.0)
+        } else {
+            let c = -a / b;
+            (c.acos(), c, (1.0 - c * c).max(0.0).sqrt())
+        };
+        let f0 = (a * h0 + b * sin_h0) / PI; // daily mean of max(0, a + b cos H)
+        let g = absorbed_peak_w_m2 * self.inv_damping;
+        // Daytime particular solution G[(a − f0) + b(r1 cos H + r2 sin H)].
+        let day = |c: f64, s: f64| g * ((a - f0) + b * (self.r1 * c + self.r2 * s));
+        let (day_set, day_rise) = (day(cos_h0, sin_h0), day(cos_h0, -sin_h0));
+        let night = -g * f0;
+        let e_day = (-2.0 * kappa * h0).exp();
+        let one_minus_e_night = -(-kappa * (TAU - 2.0 * h0)).exp_m1();
+        let a_s = day_set - e_day * day_rise;
+        let t_rise = (night * one_minus_e_night + (1.0 - one_minus_e_night) * a_s) * self.inv_denom;
+        let h = (hour_angle_rad + PI).rem_euclid(TAU) - PI;
+        if h.abs() <= h0 {
+            let (s, c) = h.sin_cos();
+            day(c, s) + (t_rise - day_rise) * (-kappa * (h + h0)).exp()
+        } else {
+            let t_set = a_s + e_day * t_rise;
+            let since_sunset = (h - h0).rem_euclid(TAU);
+            night + (t_set - night) * (-kappa * since_sunset).exp()
+        }
     }
 }
 
@@ -88,7 +147,7 @@ pub struct ClimateInstant<'a> {
     decl_rad: f64,
     /// Flux at the planet `S0/ρ²`, W m⁻² (0 without an orbit forcing).
     flux_w_m2: f64,
-    kappa: f64,
+    response: DiurnalResponse,
 }
 
 impl ClimateCycle {
@@ -127,6 +186,7 @@ impl ClimateCycle {
         let omega = TAU / solar_day_s;
         let kappa = self.spec.diurnal_damping_w_m2_per_k
             / (omega * self.spec.surface_heat_capacity_j_m2_per_k);
+        let response = DiurnalResponse::new(decl_rad, self.spec.diurnal_damping_w_m2_per_k, kappa);
         Ok(ClimateInstant {
             cycle: self,
             k0,
@@ -134,7 +194,7 @@ impl ClimateCycle {
             wt,
             decl_rad,
             flux_w_m2,
-            kappa,
+            response,
         })
     }
 
@@ -165,9 +225,13 @@ impl ClimateInstant<'_> {
 
     /// Zonal seasonal temperature at `lat_rad` (no day-night part, no elevation), °C.
     pub fn zonal_temperature_c(&self, lat_rad: f64) -> f64 {
+        self.zonal_at_x(lat_rad.sin())
+    }
+
+    fn zonal_at_x(&self, x: f64) -> f64 {
         let c = self.cycle;
         let nb = c.grid.len();
-        let (i0, i1, wx) = c.grid.interpolation(lat_rad);
+        let (i0, i1, wx) = c.grid.interpolation_x(x);
         let at = |k: usize| {
             let row = &c.temps_c[k * nb..(k + 1) * nb];
             (1.0 - wx) * row[i0] + wx * row[i1]
@@ -177,29 +241,30 @@ impl ClimateInstant<'_> {
 
     /// Day-night deviation at `lat_rad` and hour angle `hour_angle_rad`, K (zero-mean over a day).
     pub fn diurnal_deviation_k(&self, lat_rad: f64, hour_angle_rad: f64) -> f64 {
-        self.deviation_with_zonal(lat_rad, hour_angle_rad, self.zonal_temperature_c(lat_rad))
+        let (sp, cp) = lat_rad.sin_cos();
+        self.deviation_with_zonal(sp, cp, hour_angle_rad, self.zonal_at_x(sp))
     }
 
     /// Day-night deviation when the zonal temperature (which sets the ice state) is known.
-    fn deviation_with_zonal(&self, lat_rad: f64, hour_angle_rad: f64, zonal: f64) -> f64 {
-        let spec = &self.cycle.spec;
+    fn deviation_with_zonal(
+        &self,
+        sin_lat: f64,
+        cos_lat: f64,
+        hour_angle_rad: f64,
+        zonal: f64,
+    ) -> f64 {
         if self.flux_w_m2 == 0.0 {
             return 0.0;
         }
+        let spec = &self.cycle.spec;
         let iced = spec.ice_enabled && zonal < spec.ice_temperature_c;
         let coalbedo = if iced {
             1.0 - spec.ice_albedo
         } else {
-            1.0 - spec.ice_free_albedo(lat_rad.sin())
+            1.0 - spec.ice_free_albedo(sin_lat)
         };
-        diurnal_deviation_k(
-            lat_rad,
-            self.decl_rad,
-            hour_angle_rad,
-            coalbedo * self.flux_w_m2,
-            spec.diurnal_damping_w_m2_per_k,
-            self.kappa,
-        )
+        self.response
+            .deviation_k(sin_lat, cos_lat, hour_angle_rad, coalbedo * self.flux_w_m2)
     }
 
     /// Local temperature, °C: zonal + day-night deviation − lapse rate × elevation, floored at
@@ -225,8 +290,9 @@ impl ClimateInstant<'_> {
 
     fn temperature_unchecked(&self, lat_rad: f64, hour_angle_rad: f64, elevation_m: f64) -> f64 {
         let lapse = self.cycle.spec.lapse_rate_k_per_km * elevation_m / 1000.0;
-        let zonal = self.zonal_temperature_c(lat_rad);
-        let t = zonal + self.deviation_with_zonal(lat_rad, hour_angle_rad, zonal) - lapse;
+        let (sp, cp) = lat_rad.sin_cos();
+        let zonal = self.zonal_at_x(sp);
+        let t = zonal + self.deviation_with_zonal(sp, cp, hour_angle_rad, zonal) - lapse;
         t.max(ABSOLUTE_ZERO_C)
     }
 
