@@ -4,7 +4,7 @@ use serde::{Deserialize, Serialize};
 
 use super::forcing::{AnnualForcing, periodic_index};
 use super::grid::ClimateGrid;
-use super::seasons::BandPhase;
+use super::seasons::{BandPhase, harmonic_table};
 use super::spec::ClimateSpec;
 
 /// Statistics of one band over the periodic year.
@@ -69,6 +69,7 @@ impl ClimateCycle {
         let nb = grid.len();
         let ice = |t: f64| spec.ice_enabled && t < spec.ice_temperature_c;
         let mut column = vec![0.0; steps];
+        let table = harmonic_table(steps);
         let mut stats = Vec::with_capacity(nb);
         let mut phases = Vec::with_capacity(nb);
         for j in 0..nb {
@@ -86,7 +87,7 @@ impl ClimateCycle {
                 max_c,
                 ice_fraction_of_year: ice_steps as f64 / steps as f64,
             });
-            phases.push(BandPhase::from_column(&column));
+            phases.push(BandPhase::from_column_with(&column, &table));
         }
         ClimateCycle {
             spec: spec.clone(),

@@ -60,21 +60,27 @@ pub struct BandPhase {
 impl BandPhase {
     /// Harmonics of one band's temperatures at evenly spaced year fractions `k / len`.
     pub fn from_column(temps_c: &[f64]) -> Self {
+        Self::from_column_with(temps_c, &harmonic_table(temps_c.len()))
+    }
+
+    /// [`Self::from_column`] with the table of `(cos, sin)` of `2π k/len` precomputed.
+    pub(crate) fn from_column_with(temps_c: &[f64], table: &[(f64, f64)]) -> Self {
         let n = temps_c.len().max(1) as f64;
-        let harmonic = |m: f64| {
-            let (mut c, mut s) = (0.0, 0.0);
-            for (k, t) in temps_c.iter().enumerate() {
-                let (sn, cs) = (TAU * m * k as f64 / n).sin_cos();
-                c += t * cs;
-                s += t * sn;
-            }
+        let (mut c1, mut s1, mut c2, mut s2) = (0.0, 0.0, 0.0, 0.0);
+        for (t, &(c, s)) in temps_c.iter().zip(table) {
+            c1 += t * c;
+            s1 += t * s;
+            // Double-angle forms for the twice-a-year harmonic.
+            c2 += t * (c * c - s * s);
+            s2 += t * (2.0 * s * c);
+        }
+        let finish = |c: f64, s: f64, m: f64| {
             let (c, s) = (2.0 * c / n, 2.0 * s / n);
             // T ≈ amp cos(2π m f − θ): peak at f = θ / (2π m).
-            let peak = (s.atan2(c) / (TAU * m)).rem_euclid(1.0 / m);
-            (c.hypot(s), peak)
+            (c.hypot(s), (s.atan2(c) / (TAU * m)).rem_euclid(1.0 / m))
         };
-        let (a1, p1) = harmonic(1.0);
-        let (a2, p2) = harmonic(2.0);
+        let (a1, p1) = finish(c1, s1, 1.0);
+        let (a2, p2) = finish(c2, s2, 2.0);
         BandPhase {
             annual_amplitude_k: a1,
             annual_peak_year_fraction: p1,
@@ -114,6 +120,16 @@ impl BandPhase {
             _ => Season::Summer,
         }
     }
+}
+
+/// `(cos, sin)` of `2π k / n` for `k = 0..n`.
+pub(crate) fn harmonic_table(n: usize) -> Vec<(f64, f64)> {
+    (0..n)
+        .map(|k| {
+            let (s, c) = (TAU * k as f64 / n as f64).sin_cos();
+            (c, s)
+        })
+        .collect()
 }
 
 impl ClimateZone {

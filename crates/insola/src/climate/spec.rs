@@ -92,8 +92,9 @@ impl Default for ClimateSpec {
 impl ClimateSpec {
     /// The North, Cahalan & Coakley (1981, Rev. Geophys. 19, 91, eq. 25) parameter set:
     /// A 203.3 W m⁻², B 2.09 W m⁻² K⁻¹, D 0.649 W m⁻² K⁻¹, co-albedo 0.697 − 0.0779·P2 (albedo
-    /// 0.303 + 0.0779·P2), ice co-albedo 0.38 below −10 °C. Values as read in a public
-    /// transcription of the paper's parameters. The mixed layer keeps the default 10 m.
+    /// 0.303 + 0.0779·P2), ice co-albedo 0.38 below −10 °C. Values as read in published
+    /// EBM code that cites that equation (journal details from memory). The mixed layer keeps
+    /// the default 10 m.
     pub fn north_1981() -> Self {
         ClimateSpec {
             olr_a_w_m2: 203.3,
