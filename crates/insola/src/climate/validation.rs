@@ -391,3 +391,18 @@ proptest! {
         }
     }
 }
+
+#[test]
+fn presets_run_on_the_validation_orbit() {
+    // Earth orbit as a marked validation reference; the presets must settle to a climate with
+    // a global mean within the broad range of simple EBMs (common practice, no source).
+    for spec in [
+        ClimateSpec::default(),
+        ClimateSpec::north_1981(),
+        ClimateSpec::climlab_defaults(),
+    ] {
+        let c = equilibrate(&spec, &earth_like_forcing(23.446)).unwrap();
+        let g = c.global_mean_c();
+        assert!(c.converged() && g > -10.0 && g < 30.0, "{g}");
+    }
+}
