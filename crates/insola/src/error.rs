@@ -62,19 +62,12 @@ pub enum SpecError {
 impl SpecError {
     /// Builds [`SpecError::OutOfRange`].
     pub fn out_of_range(field: impl Into<String>, value: f64, allowed: impl Into<String>) -> Self {
-        SpecError::OutOfRange {
-            field: field.into(),
-            value,
-            allowed: allowed.into(),
-        }
+        SpecError::OutOfRange { field: field.into(), value, allowed: allowed.into() }
     }
 
     /// Builds [`SpecError::Inconsistent`].
     pub fn inconsistent(field: impl Into<String>, reason: impl Into<String>) -> Self {
-        SpecError::Inconsistent {
-            field: field.into(),
-            reason: reason.into(),
-        }
+        SpecError::Inconsistent { field: field.into(), reason: reason.into() }
     }
 
     /// The dotted field path the error is about, if it concerns one field.
@@ -93,11 +86,7 @@ pub fn check_range(field: &str, value: f64, min: f64, max: f64) -> Result<f64, S
     if value.is_finite() && value >= min && value <= max {
         Ok(value)
     } else {
-        Err(SpecError::out_of_range(
-            field,
-            value,
-            format!("{min} to {max}"),
-        ))
+        Err(SpecError::out_of_range(field, value, format!("{min} to {max}")))
     }
 }
 
@@ -106,11 +95,7 @@ pub fn check_range_open_min(field: &str, value: f64, min: f64, max: f64) -> Resu
     if value.is_finite() && value > min && value <= max {
         Ok(value)
     } else {
-        Err(SpecError::out_of_range(
-            field,
-            value,
-            format!("greater than {min}, up to {max}"),
-        ))
+        Err(SpecError::out_of_range(field, value, format!("greater than {min}, up to {max}")))
     }
 }
 
@@ -130,20 +115,10 @@ pub enum QueryError {
 }
 
 /// Checks a query argument; see [`QueryError`].
-pub fn check_arg(
-    name: &'static str,
-    value: f64,
-    min: f64,
-    max: f64,
-    allowed: &'static str,
-) -> Result<f64, QueryError> {
+pub fn check_arg(name: &'static str, value: f64, min: f64, max: f64, allowed: &'static str) -> Result<f64, QueryError> {
     if value.is_finite() && value >= min && value <= max {
         Ok(value)
     } else {
-        Err(QueryError::OutOfRange {
-            name,
-            value,
-            allowed,
-        })
+        Err(QueryError::OutOfRange { name, value, allowed })
     }
 }

@@ -9,13 +9,7 @@ use std::f64::consts::PI;
 /// Instantaneous insolation on a horizontal surface, W m⁻².
 ///
 /// `Q = (S0/ρ²) max(0, sin φ sin δ + cos φ cos δ cos H)`, `H` the hour angle in radians.
-pub fn instantaneous_w_m2(
-    s0_w_m2: f64,
-    lat_rad: f64,
-    decl_rad: f64,
-    hour_angle_rad: f64,
-    rho: f64,
-) -> f64 {
+pub fn instantaneous_w_m2(s0_w_m2: f64, lat_rad: f64, decl_rad: f64, hour_angle_rad: f64, rho: f64) -> f64 {
     let mu = lat_rad.sin() * decl_rad.sin() + lat_rad.cos() * decl_rad.cos() * hour_angle_rad.cos();
     s0_w_m2 / (rho * rho) * mu.max(0.0)
 }
