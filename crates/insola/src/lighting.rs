@@ -103,11 +103,12 @@ impl Planet {
             LightMode::Ground => model.direct_beam(pos.altitude_rad, instant.toa_flux_w_m2),
             LightMode::TopOfAtmosphere => {
                 let mut b = model.top_of_atmosphere(instant.toa_flux_w_m2);
-                // Above the air the star is simply up or down; fade across its own disc so the
-                // light does not switch off in one frame.
+                // Fade across the star's own (refracted) disc so the light does not switch off
+                // in one frame, exactly as the ground beam does.
+                let apparent = model.apparent_altitude_rad(pos.altitude_rad);
                 b.illuminance_lux *= crate::light::disc_fraction_above_horizon(
-                    pos.altitude_rad,
-                    instant.angular_radius_rad,
+                    apparent,
+                    model.star_angular_radius_rad(),
                 );
                 b
             }

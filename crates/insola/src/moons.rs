@@ -391,7 +391,7 @@ impl Planet {
                     LightMode::TopOfAtmosphere => {
                         let toa = model.top_of_atmosphere(1.0);
                         let fade = crate::light::disc_fraction_above_horizon(
-                            view.altitude_rad,
+                            model.apparent_altitude_rad(view.altitude_rad),
                             view.angular_radius_rad,
                         );
                         (toa_lux * fade, toa.colour)

@@ -157,6 +157,11 @@ impl StarLightModel {
         &self.atmosphere
     }
 
+    /// Angular radius of the star's disc used for the horizon fade, radians.
+    pub fn star_angular_radius_rad(&self) -> f64 {
+        self.star_angular_radius_rad
+    }
+
     /// Luminous efficacy of the star's black-body light, in lm/W (≈ 92 lm/W at 5772 K).
     pub fn luminous_efficacy_lm_per_w(&self) -> f64 {
         self.efficacy_lm_per_w

@@ -1,0 +1,310 @@
+//! The seasonal diffusive energy balance model and its implicit time step.
+//!
+//! `C ∂T/∂t = Q(x,t)·a(x,T) − (A + B·T) + D ∂/∂x[(1 − x²) ∂T/∂x]` on equal-area bands in
+//! `x = sin φ` (North 1975; North, Cahalan & Coakley 1981), discretised by finite volumes: the
+//! flux through a band edge `x_e` is `D (1 − x_e²)(T_right − T_left)/Δx`, zero at the poles, so
+//! the scheme conserves energy exactly and `x` (the first Legendre mode) is an exact eigenvector
+//! of the discrete operator with eigenvalue `−2D`, as in the continuous equation.
+//!
+//! Time step (backward Euler on diffusion and on `B·T`, absorbed sunlight and `A` explicit):
+//! `(C/Δt + B − L)·Tⁿ⁺¹ = (C/Δt)·Tⁿ + Qⁿ⁺¹·a(Tⁿ) − A`. The co-albedo `a` is taken from the
+//! previous step's temperature (semi-implicit ice albedo), so the matrix never changes: it is
+//! factorised once and every step is one forward and one backward sweep. The scheme is stable
+//! for any heat capacity (including zero) and any step length.
+
+use super::forcing::BandInsolation;
+use super::grid::ClimateGrid;
+use super::spec::ClimateSpec;
+use crate::error::SpecError;
+
+/// A factorised symmetric-or-not tridiagonal matrix (Thomas algorithm).
+///
+/// Hand-written: it is twenty lines, and a general linear-algebra dependency would be far larger
+/// than the need. The matrices here are strictly diagonally dominant, so no pivoting is needed.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct Tridiagonal {
+    /// Sub-diagonal `l[j]` multiplying `x[j−1]` in row `j` (`l[0]` unused).
+    lower: Vec<f64>,
+    /// Modified super-diagonal `c'[j]` from the forward sweep.
+    c_prime: Vec<f64>,
+    /// Reciprocal of the modified diagonal.
+    inv_denom: Vec<f64>,
+}
+
+impl Tridiagonal {
+    /// Factorises the matrix with sub-diagonal `lower`, diagonal `diag`, super-diagonal `upper`.
+    pub(crate) fn factorise(lower: &[f64], diag: &[f64], upper: &[f64]) -> Self {
+        let n = diag.len();
+        let mut c_prime = vec![0.0; n];
+        let mut inv_denom = vec![0.0; n];
+        let mut prev_c = 0.0;
+        for j in 0..n {
+            let l = if j == 0 { 0.0 } else { lower[j] };
+            let inv = 1.0 / (diag[j] - l * prev_c);
+            inv_denom[j] = inv;
+            c_prime[j] = if j + 1 < n { upper[j] * inv } else { 0.0 };
+            prev_c = c_prime[j];
+        }
+        Tridiagonal {
+            lower: lower.to_vec(),
+            c_prime,
+            inv_denom,
+        }
+    }
+
+    /// Solves `M x = rhs` in place (`rhs` becomes `x`).
+    pub(crate) fn solve_in_place(&self, rhs: &mut [f64]) {
+        let n = rhs.len();
+        let mut prev = 0.0;
+        for ((r, l), inv) in rhs.iter_mut().zip(&self.lower).zip(&self.inv_denom) {
+            let y = (*r - l * prev) * inv;
+            *r = y;
+            prev = y;
+        }
+        for j in (0..n.saturating_sub(1)).rev() {
+            rhs[j] -= self.c_prime[j] * rhs[j + 1];
+        }
+    }
+}
+
+/// The energy balance model set up for one spec, grid and insolation table.
+#[derive(Debug, Clone)]
+pub struct EnergyBalanceModel {
+    pub(crate) spec: ClimateSpec,
+    pub(crate) grid: ClimateGrid,
+    pub(crate) insolation: BandInsolation,
+    /// Heat capacity, J m⁻² K⁻¹ (same in every band).
+    pub(crate) heat_capacity: f64,
+    /// Step length, s.
+    pub(crate) dt_s: f64,
+    /// Ice-free co-albedo `1 − (a0 + a2 P2)` per band.
+    coalbedo_free: Vec<f64>,
+    /// Ice co-albedo `1 − ice_albedo`.
+    coalbedo_ice: f64,
+    /// `(C/Δt + B − L)` factorised.
+    step_matrix: Tridiagonal,
+    /// `(B − L)` factorised, for the steady annual-mean state.
+    steady_matrix: Tridiagonal,
+}
+
+impl EnergyBalanceModel {
+    /// Sets up the model; validates the spec (errors name `climate.*` fields) and checks that
+    /// the insolation table matches the grid.
+    pub fn new(spec: &ClimateSpec, insolation: BandInsolation) -> Result<Self, SpecError> {
+        spec.validate("climate")?;
+        let grid = ClimateGrid::new(spec.bands)?;
+        if insolation.bands() != grid.len() {
+            return Err(SpecError::inconsistent(
+                "climate.bands",
+                format!(
+                    "the insolation table has {} bands, the spec {}",
+                    insolation.bands(),
+                    grid.len()
+                ),
+            ));
+        }
+        let heat_capacity = spec.heat_capacity_j_m2_per_k();
+        let dt_s = insolation.year_s() / insolation.steps() as f64;
+        let n = grid.len();
+        let dx = grid.dx();
+        // Edge conductances k_e = D (1 − x_e²)/Δx² for the interior edges 1..n.
+        let edges = grid.x_edges();
+        let k: Vec<f64> = (0..=n)
+            .map(|e| {
+                if e == 0 || e == n {
+                    0.0
+                } else {
+                    spec.diffusion_w_m2_per_k * (1.0 - edges[e] * edges[e]) / (dx * dx)
+                }
+            })
+            .collect();
+        let lower: Vec<f64> = (0..n).map(|j| -k[j]).collect();
+        let upper: Vec<f64> = (0..n).map(|j| -k[j + 1]).collect();
+        let b = spec.olr_b_w_m2_per_k;
+        let diag_steady: Vec<f64> = (0..n).map(|j| b + k[j] + k[j + 1]).collect();
+        let c_dt = heat_capacity / dt_s;
+        let diag_step: Vec<f64> = diag_steady.iter().map(|d| d + c_dt).collect();
+        let coalbedo_free = grid
+            .x_centres()
+            .iter()
+            .map(|&x| 1.0 - spec.ice_free_albedo(x))
+            .collect();
+        Ok(EnergyBalanceModel {
+            spec: spec.clone(),
+            coalbedo_ice: 1.0 - spec.ice_albedo,
+            step_matrix: Tridiagonal::factorise(&lower, &diag_step, &upper),
+            steady_matrix: Tridiagonal::factorise(&lower, &diag_steady, &upper),
+            grid,
+            insolation,
+            heat_capacity,
+            dt_s,
+            coalbedo_free,
+        })
+    }
+
+    /// The latitude grid.
+    pub fn grid(&self) -> &ClimateGrid {
+        &self.grid
+    }
+
+    /// The spec the model was built from.
+    pub fn spec(&self) -> &ClimateSpec {
+        &self.spec
+    }
+
+    /// Step length, s.
+    pub fn dt_s(&self) -> f64 {
+        self.dt_s
+    }
+
+    /// Band heat capacity, J m⁻² K⁻¹.
+    pub fn heat_capacity_j_m2_per_k(&self) -> f64 {
+        self.heat_capacity
+    }
+
+    /// Model steps per year.
+    pub fn steps_per_year(&self) -> usize {
+        self.insolation.steps()
+    }
+
+    /// Whether a band at temperature `t_c` (°C) is ice covered.
+    #[inline]
+    pub fn is_ice(&self, t_c: f64) -> bool {
+        self.spec.ice_enabled && t_c < self.spec.ice_temperature_c
+    }
+
+    /// Co-albedo (absorbed fraction of sunlight) of band `j` at temperature `t_c` (°C).
+    #[inline]
+    pub fn coalbedo(&self, j: usize, t_c: f64) -> f64 {
+        if self.is_ice(t_c) {
+            self.coalbedo_ice
+        } else {
+            self.coalbedo_free[j]
+        }
+    }
+
+    /// Advances `temps_c` (one value per band, °C) by one step to the end of step `k`, i.e. to
+    /// year fraction `(k + 1)/steps`, using the insolation at that time. `scratch` must have one
+    /// entry per band. Returns nothing; no allocation.
+    pub fn step(&self, k: usize, temps_c: &mut [f64], scratch: &mut [f64]) {
+        let q = self.insolation.row((k + 1) % self.insolation.steps());
+        let c_dt = self.heat_capacity / self.dt_s;
+        let a = self.spec.olr_a_w_m2;
+        for (j, (r, &t)) in scratch.iter_mut().zip(temps_c.iter()).enumerate() {
+            *r = c_dt * t + q[j] * self.coalbedo(j, t) - a;
+        }
+        self.step_matrix.solve_in_place(scratch);
+        temps_c.copy_from_slice(scratch);
+    }
+
+    /// Runs one year from `temps_c` (state at year fraction 0) and writes the state at the start
+    /// of every step into `trajectory` (`steps × bands`, row-major); `temps_c` ends at year end.
+    pub fn run_year(&self, temps_c: &mut [f64], trajectory: &mut [f64], scratch: &mut [f64]) {
+        let nb = self.grid.len();
+        for k in 0..self.insolation.steps() {
+            trajectory[k * nb..(k + 1) * nb].copy_from_slice(temps_c);
+            self.step(k, temps_c, scratch);
+        }
+    }
+
+    /// Steady state under the annual-mean insolation, °C per band: `(B − L)·T = Q̄·a(T) − A`,
+    /// with the ice mask found by fixed-point iteration from an ice-free start (at most 50
+    /// passes; the ice-free branch is found when it exists). This is the analytic annual-mean
+    /// solution of North (1975) in discrete form, and the start of the seasonal integration.
+    pub fn steady_annual_mean(&self) -> Vec<f64> {
+        let qbar = self.insolation.mean_per_band();
+        let n = self.grid.len();
+        let mut t = vec![f64::INFINITY; n];
+        let mut next = vec![0.0; n];
+        for _ in 0..50 {
+            for j in 0..n {
+                next[j] = qbar[j] * self.coalbedo(j, t[j]) - self.spec.olr_a_w_m2;
+            }
+            self.steady_matrix.solve_in_place(&mut next);
+            let same_mask = t
+                .iter()
+                .zip(&next)
+                .all(|(&a, &b)| self.is_ice(a) == self.is_ice(b));
+            std::mem::swap(&mut t, &mut next);
+            if same_mask {
+                break;
+            }
+        }
+        t
+    }
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn thomas_solves_a_small_system() {
+        // [2 -1 0; -1 2 -1; 0 -1 2] x = [1 0 1] → x = [1 1 1].
+        let m = Tridiagonal::factorise(&[0.0, -1.0, -1.0], &[2.0, 2.0, 2.0], &[-1.0, -1.0, 0.0]);
+        let mut r = [1.0, 0.0, 1.0];
+        m.solve_in_place(&mut r);
+        for v in r {
+            assert!((v - 1.0).abs() < 1e-14);
+        }
+    }
+
+    #[test]
+    fn analytic_annual_mean_p2_solution() {
+        // climlab `tests/test_ebm.py::test_analytical` (formula and tolerance 0.02 read there):
+        // constant albedo 0.3, no ice, Q = S0/4 (1 + s2 P2), S0 1365.2, s2 −0.48, A 210, B 2,
+        // D 0.555: T(x) = [(1 − a0) S0/4 (1 + s2 P2(x)/(1 + 6D/B)) − A]/B. The listed values are
+        // computed from that formula (regression): 25.213, 17.144, 9.076, 1.008, −7.060 °C.
+        let spec = ClimateSpec {
+            albedo_a0: 0.3,
+            albedo_a2: 0.0,
+            ice_enabled: false,
+            ..ClimateSpec::climlab_defaults()
+        };
+        let grid = ClimateGrid::new(spec.bands).unwrap();
+        let ins = BandInsolation::annual_mean_p2(&grid, 36, 3.15e7, 1365.2, -0.48).unwrap();
+        let model = EnergyBalanceModel::new(&spec, ins).unwrap();
+        let t = model.steady_annual_mean();
+        let exact = |x: f64| {
+            let p2 = 0.5 * (3.0 * x * x - 1.0);
+            (0.7 * 1365.2 / 4.0 * (1.0 - 0.48 * p2 / (1.0 + 6.0 * 0.555 / 2.0)) - 210.0) / 2.0
+        };
+        for (j, &x) in grid.x_centres().iter().enumerate() {
+            assert!(
+                (t[j] - exact(x)).abs() < 0.02,
+                "band {j}: {} vs {}",
+                t[j],
+                exact(x)
+            );
+        }
+        for (lat, want) in [
+            (0.0, 25.213),
+            (30.0, 17.144),
+            (45.0, 9.076),
+            (60.0, 1.008),
+            (90.0, -7.060),
+        ] {
+            let got = grid.interpolate(&t, f64::to_radians(lat));
+            assert!((got - want).abs() < 0.02, "{lat}: {got} vs {want}");
+        }
+        let global = grid.global_mean(&t);
+        assert!((global - 14.455).abs() < 0.02, "{global}");
+    }
+
+    #[test]
+    fn step_conserves_energy_without_sunlight_gradients() {
+        // Uniform forcing and uniform start: diffusion does nothing, every band relaxes alike.
+        let spec = ClimateSpec {
+            ice_enabled: false,
+            albedo_a2: 0.0,
+            ..ClimateSpec::default()
+        };
+        let grid = ClimateGrid::new(spec.bands).unwrap();
+        let ins = BandInsolation::from_fn(&grid, 50, 3.15e7, |_, _| 300.0).unwrap();
+        let model = EnergyBalanceModel::new(&spec, ins).unwrap();
+        let mut t = vec![5.0; grid.len()];
+        let mut s = vec![0.0; grid.len()];
+        model.step(0, &mut t, &mut s);
+        assert!(t.iter().all(|v| (v - t[0]).abs() < 1e-9));
+    }
+}
