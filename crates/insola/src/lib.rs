@@ -18,8 +18,10 @@ pub mod seasons;
 mod sky;
 pub mod spin;
 pub mod world;
+mod world_climate;
 
 pub use error::{QueryError, SpecError};
 pub use planet::Planet;
 pub use sky::{Place, StarInstant, StarPosition};
 pub use world::WorldSpec;
+pub use world_climate::LocalClimate;
