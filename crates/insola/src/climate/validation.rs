@@ -406,3 +406,231 @@ fn presets_run_on_the_validation_orbit() {
         assert!(c.converged() && g > -10.0 && g < 30.0, "{g}");
     }
 }
+
+#[test]
+fn hysteresis_snowball_persists_where_a_warm_climate_also_exists() {
+    // Budyko (1969) and Sellers (1969) found that the step ice albedo gives several equilibria
+    // for one stellar flux; North (1975) and North, Cahalan & Coakley (1981) show the S-shaped
+    // ice-edge curve with a hysteresis loop (from memory). Sweep the flux down from a warm
+    // start until the planet freezes over, then back up, each step starting from the previous
+    // state (climlab defaults, annual-mean insolation of the validation orbit).
+    let spec = ClimateSpec::climlab_defaults();
+    let grid = ClimateGrid::new(spec.bands).unwrap();
+    let run = |s0: f64, start: Vec<f64>| {
+        let f = kepler_forcing(s0, 0.017236, 23.446, 281.37, YEAR_S, 90);
+        let ins = BandInsolation::from_forcing(&f, &grid, spec.steps_per_year)
+            .unwrap()
+            .annual_mean();
+        let m = EnergyBalanceModel::new(&spec, ins).unwrap();
+        equilibrate_model(&m, None, &Start::Given(start)).unwrap()
+    };
+    let fluxes: Vec<f64> = (0..=10).map(|i| 1400.0 - 25.0 * i as f64).collect();
+    let mut state = vec![15.0; grid.len()];
+    let mut down = Vec::new();
+    for &s0 in &fluxes {
+        let c = run(s0, state);
+        state = c.temperatures_c(0).to_vec();
+        down.push((s0, c.ice_area_fraction()));
+    }
+    // The bottom of the sweep (1150 W m⁻²) is a snowball.
+    assert_eq!(down.last().unwrap().1, 1.0, "{down:?}");
+    let mut up = Vec::new();
+    for &s0 in fluxes.iter().rev() {
+        let c = run(s0, state);
+        state = c.temperatures_c(0).to_vec();
+        up.push((s0, c.ice_area_fraction()));
+    }
+    // At a flux where the downward sweep still had open water, the upward sweep is frozen.
+    let both = fluxes.iter().any(|&s0| {
+        let d = down.iter().find(|p| p.0 == s0).unwrap().1;
+        let u = up.iter().find(|p| p.0 == s0).unwrap().1;
+        d < 0.5 && u == 1.0
+    });
+    assert!(both, "down {down:?} up {up:?}");
+    // The snowball melts only at a much larger flux (ice co-albedo 0.38: the equator reaches
+    // −10 °C only when 0.38·Q_eq > A − 10 B), so at 1400 W m⁻² it is still frozen.
+    assert_eq!(up.last().unwrap(), &(1400.0, 1.0));
+    // The same fluxes from a warm start are not all frozen: two equilibria.
+    let warm = run(1325.0, vec![15.0; grid.len()]);
+    assert!(warm.ice_area_fraction() < 0.5);
+}
+
+#[test]
+fn energy_is_conserved_over_the_periodic_year() {
+    // First law: over a periodic year the stored heat returns to its start, and the diffusion
+    // term only moves heat between bands (zero flux at the poles), so the area- and time-mean
+    // absorbed sunlight must equal the outgoing longwave (standard EBM energy budget,
+    // e.g. North, Cahalan & Coakley 1981). Evaluated with the scheme's own step pairing:
+    // sunlight at the step end with co-albedo from the step start, longwave at the step end.
+    for (spec, tilt, e) in [
+        (ClimateSpec::default(), 23.446, 0.017236),
+        (ClimateSpec::north_1981(), 60.0, 0.2),
+        (
+            ClimateSpec {
+                land_fraction: 0.6,
+                mixed_layer_depth_m: 50.0,
+                ..ClimateSpec::default()
+            },
+            35.0,
+            0.05,
+        ),
+    ] {
+        let forcing = kepler_forcing(1365.2, e, tilt, 281.37, YEAR_S, 360);
+        let m = model(&spec, &forcing);
+        let cycle = equilibrate_model(&m, Some(&forcing), &Start::SteadyAnnualMean).unwrap();
+        let (nb, steps) = (m.grid().len(), m.steps_per_year());
+        let (mut absorbed, mut olr) = (0.0, 0.0);
+        for k in 0..steps {
+            let now = cycle.temperatures_c(k);
+            let next = cycle.temperatures_c((k + 1) % steps);
+            let q = m.insolation.row((k + 1) % steps);
+            for j in 0..nb {
+                absorbed += q[j] * m.coalbedo(j, now[j]);
+                olr += spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * next[j];
+            }
+        }
+        let n = (steps * nb) as f64;
+        let (absorbed, olr) = (absorbed / n, olr / n);
+        assert!(
+            (absorbed - olr).abs() < 0.1,
+            "tilt {tilt}: absorbed {absorbed:.3} vs outgoing {olr:.3} W/m²"
+        );
+        // And the budget is a real one: about 240 W m⁻² for an Earth-like planet.
+        assert!(absorbed > 150.0 && absorbed < 320.0, "{absorbed}");
+    }
+}
+
+#[test]
+fn seasonal_swing_at_high_latitudes_grows_with_tilt() {
+    // Common practice, no source: more tilt, stronger seasons, most at high latitudes.
+    // Constant ice-free albedo so the ice line does not blur the trend.
+    let spec = ClimateSpec {
+        ice_enabled: false,
+        albedo_a2: 0.0,
+        ..ClimateSpec::default()
+    };
+    let swing_at = |tilt: f64, lat_deg: f64| {
+        let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
+        let s = c.band_stats()[c.grid().band_of(lat_deg.to_radians())];
+        s.max_c - s.min_c
+    };
+    let mut last = 0.0;
+    for tilt in [5.0, 15.0, 23.44, 35.0, 50.0, 70.0] {
+        let high = swing_at(tilt, 70.0);
+        let low = swing_at(tilt, 10.0);
+        assert!(high > last, "tilt {tilt}: swing {high} not above {last}");
+        assert!(high > low, "tilt {tilt}: 70° swing {high} vs 10° swing {low}");
+        last = high;
+    }
+}
+
+#[test]
+fn poles_warmer_than_the_equator_only_above_about_54_degrees() {
+    // Common practice (the "about 54°" crossover usually credited to Ward 1974, from memory):
+    // the annual-mean insolation of the poles overtakes the equator's at 53.9° of tilt, and an
+    // ice-free model with constant albedo follows the sunlight.
+    let spec = ClimateSpec {
+        ice_enabled: false,
+        albedo_a2: 0.0,
+        ..ClimateSpec::default()
+    };
+    let pole_minus_equator = |tilt: f64| {
+        let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
+        let s = c.band_stats();
+        s[s.len() - 1].mean_c - s[s.len() / 2].mean_c
+    };
+    for tilt in [23.44, 45.0, 51.0] {
+        assert!(pole_minus_equator(tilt) < 0.0, "tilt {tilt}");
+    }
+    for tilt in [57.0, 65.0, 80.0] {
+        assert!(pole_minus_equator(tilt) > 0.0, "tilt {tilt}");
+    }
+}
+
+#[test]
+fn bad_climate_parameters_name_the_field() {
+    let cases: Vec<(ClimateSpec, &str)> = vec![
+        (
+            ClimateSpec {
+                mixed_layer_depth_m: -5.0,
+                ..ClimateSpec::default()
+            },
+            "climate.mixed_layer_depth_m",
+        ),
+        (
+            ClimateSpec {
+                land_heat_capacity_j_m2_per_k: -1e6,
+                ..ClimateSpec::default()
+            },
+            "climate.land_heat_capacity_j_m2_per_k",
+        ),
+        (
+            ClimateSpec {
+                surface_heat_capacity_j_m2_per_k: -1.0,
+                ..ClimateSpec::default()
+            },
+            "climate.surface_heat_capacity_j_m2_per_k",
+        ),
+        (
+            ClimateSpec {
+                albedo_a0: 1.5,
+                ..ClimateSpec::default()
+            },
+            "climate.albedo_a0",
+        ),
+        (
+            ClimateSpec {
+                ice_albedo: -0.1,
+                ..ClimateSpec::default()
+            },
+            "climate.ice_albedo",
+        ),
+        (
+            ClimateSpec {
+                diffusion_w_m2_per_k: f64::NAN,
+                ..ClimateSpec::default()
+            },
+            "climate.diffusion_w_m2_per_k",
+        ),
+        (
+            ClimateSpec {
+                olr_a_w_m2: f64::NAN,
+                ..ClimateSpec::default()
+            },
+            "climate.olr_a_w_m2",
+        ),
+    ];
+    for (spec, field) in cases {
+        match equilibrate(&spec, &earth_like_forcing(23.44)) {
+            Err(ClimateError::Spec(e)) => {
+                assert_eq!(e.field(), Some(field));
+                assert!(e.to_string().contains(field), "{e}");
+            }
+            other => panic!("{field}: {other:?}"),
+        }
+    }
+}
+
+#[test]
+fn bad_climate_section_in_a_world_file_names_the_field() {
+    // A world file whose climate section has an albedo above one.
+    let text = r#"(
+        name: "Pellmire",
+        star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
+        orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02, periapsis_longitude_deg: 100,
+                period_days: 300),
+        spin: (obliquity_deg: 20, solar_day_hours: 22),
+        climate: (albedo_a0: 1.5),
+    )"#;
+    let err = crate::WorldSpec::from_ron_str(text).unwrap_err();
+    assert_eq!(err.field(), Some("climate.albedo_a0"), "{err}");
+    for (field, value) in [
+        ("mixed_layer_depth_m", "-3.0"),
+        ("diffusion_w_m2_per_k", "NaN"),
+    ] {
+        let t = text.replace("albedo_a0: 1.5", &format!("{field}: {value}"));
+        let err = crate::WorldSpec::from_ron_str(&t).unwrap_err();
+        let want = format!("climate.{field}");
+        assert_eq!(err.field(), Some(want.as_str()), "{err}");
+    }
+}
