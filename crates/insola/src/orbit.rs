@@ -28,7 +28,14 @@ pub fn solve_kepler(mean_anomaly_rad: f64, e: f64) -> f64 {
     let m = wrap_pi(mean_anomaly_rad - turns * TAU);
     // f(E) = E − e sin E − M is increasing; the root lies in [M − e, M + e].
     let (mut lo, mut hi) = (m - e, m + e);
-    let mut ecc = if e < 0.8 { m } else { PI.copysign(m) };
+    // Small eccentricities: the second-order series start (Meeus ch. 30) usually leaves one or
+    // two Newton steps; large ones start from π as Meeus advises.
+    let mut ecc = if e < 0.8 {
+        let (sm, cm) = m.sin_cos();
+        m + e * sm * (1.0 + e * cm)
+    } else {
+        PI.copysign(m)
+    };
     ecc = ecc.clamp(lo, hi);
     for _ in 0..60 {
         let (s, c) = ecc.sin_cos();
@@ -141,11 +148,14 @@ impl Orbit {
     pub fn state_at_mean_anomaly(&self, mean_anomaly_rad: f64) -> OrbitState {
         let e = self.eccentricity;
         let ecc = solve_kepler(mean_anomaly_rad, e);
-        let v = true_anomaly_from_eccentric(ecc, e);
+        // True anomaly from sin E and cos E (one sin_cos, one atan2):
+        // cos v = (cos E − e)/(1 − e cos E), sin v = √(1 − e²) sin E/(1 − e cos E).
+        let (se, ce) = ecc.sin_cos();
+        let v = ((1.0 - e * e).sqrt() * se).atan2(ce - e);
         OrbitState {
             mean_anomaly_rad: wrap_tau(mean_anomaly_rad),
             true_anomaly_rad: wrap_tau(v),
-            distance_factor: 1.0 - e * ecc.cos(),
+            distance_factor: 1.0 - e * ce,
             star_longitude_rad: wrap_tau(v + self.periapsis_longitude_rad),
             star_mean_longitude_rad: wrap_tau(mean_anomaly_rad + self.periapsis_longitude_rad),
         }

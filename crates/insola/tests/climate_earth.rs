@@ -87,5 +87,8 @@ fn ice_edge_and_seasons_look_like_earth() {
     let e = c.ice_edges();
     let n = e.north_lat_rad.unwrap().to_degrees();
     let s = e.south_lat_rad.unwrap().to_degrees();
-    assert!((60.0..80.0).contains(&n) && (-80.0..-60.0).contains(&s), "{n} {s}");
+    assert!(
+        (60.0..80.0).contains(&n) && (-80.0..-60.0).contains(&s),
+        "{n} {s}"
+    );
 }

@@ -519,7 +519,10 @@ fn seasonal_swing_at_high_latitudes_grows_with_tilt() {
         let high = swing_at(tilt, 70.0);
         let low = swing_at(tilt, 10.0);
         assert!(high > last, "tilt {tilt}: swing {high} not above {last}");
-        assert!(high > low, "tilt {tilt}: 70° swing {high} vs 10° swing {low}");
+        assert!(
+            high > low,
+            "tilt {tilt}: 70° swing {high} vs 10° swing {low}"
+        );
         last = high;
     }
 }
