@@ -76,7 +76,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [DVec3],
     ) {
-        let (sd, cd) = instant.declination_rad.sin_cos();
+        let (sd, cd) = (instant.sin_declination, instant.cos_declination);
         let n = batch.len().min(out.len());
         for k in 0..n {
             out[k] = direction(
@@ -97,7 +97,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [DVec3],
     ) {
-        let (sd, cd) = instant.declination_rad.sin_cos();
+        let (sd, cd) = (instant.sin_declination, instant.cos_declination);
         let n = batch.len().min(out.len());
         out[..n]
             .par_chunks_mut(CHUNK)
@@ -126,7 +126,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [f64],
     ) {
-        let (sd, cd) = instant.declination_rad.sin_cos();
+        let (sd, cd) = (instant.sin_declination, instant.cos_declination);
         let n = batch.len().min(out.len());
         out[..n]
             .par_chunks_mut(CHUNK)

@@ -20,16 +20,22 @@ pub const MAX_ECCENTRICITY: f64 = 0.99;
 /// `e ≥ 0.8`, Meeus, *Astronomical Algorithms* ch. 30), kept inside a bracket so it cannot
 /// diverge. The result is in the same turn as `M` (`E − M` lies in `[−e, e]`).
 pub fn solve_kepler(mean_anomaly_rad: f64, e: f64) -> f64 {
+    solve_kepler_sin_cos(mean_anomaly_rad, e).0
+}
+
+/// [`solve_kepler`] that also returns `sin E` and `cos E`, saving the caller a `sin_cos`.
+pub fn solve_kepler_sin_cos(mean_anomaly_rad: f64, e: f64) -> (f64, f64, f64) {
     if e == 0.0 {
-        return mean_anomaly_rad;
+        let (s, c) = mean_anomaly_rad.sin_cos();
+        return (mean_anomaly_rad, s, c);
     }
     // Work in [−π, π) and add the whole turns back at the end so large M keep full precision.
     let turns = (mean_anomaly_rad / TAU).round();
     let m = wrap_pi(mean_anomaly_rad - turns * TAU);
     // f(E) = E − e sin E − M is increasing; the root lies in [M − e, M + e].
     let (mut lo, mut hi) = (m - e, m + e);
-    // Small eccentricities: the second-order series start (Meeus ch. 30) usually leaves one or
-    // two Newton steps; large ones start from π as Meeus advises.
+    // Small eccentricities: the second-order series start (Meeus ch. 30) leaves one or two
+    // Newton steps; large ones start from π as Meeus advises.
     let mut ecc = if e < 0.8 {
         let (sm, cm) = m.sin_cos();
         m + e * sm * (1.0 + e * cm)
@@ -37,29 +43,32 @@ pub fn solve_kepler(mean_anomaly_rad: f64, e: f64) -> f64 {
         PI.copysign(m)
     };
     ecc = ecc.clamp(lo, hi);
+    let (mut s, mut c) = ecc.sin_cos();
     for _ in 0..60 {
-        let (s, c) = ecc.sin_cos();
         let f = ecc - e * s - m;
-        if f.abs() < 1e-15 {
-            break;
-        }
         if f > 0.0 {
             hi = ecc;
         } else {
             lo = ecc;
         }
-        let fp = 1.0 - e * c;
-        let mut next = ecc - f / fp;
+        let step = -f / (1.0 - e * c);
+        if step.abs() < 1e-9 {
+            // Newton converges quadratically: this last step leaves an error near step², far
+            // below 1e-15, and sin/cos follow to first order (error step²/2).
+            ecc += step;
+            let (s0, c0) = (s, c);
+            s = s0 + c0 * step;
+            c = c0 - s0 * step;
+            break;
+        }
+        let mut next = ecc + step;
         if !(next > lo && next < hi) {
             next = 0.5 * (lo + hi);
         }
-        if (next - ecc).abs() < 1e-15 {
-            ecc = next;
-            break;
-        }
         ecc = next;
+        (s, c) = ecc.sin_cos();
     }
-    ecc + turns * TAU
+    (ecc + turns * TAU, s, c)
 }
 
 /// True anomaly `v` (radians) from the eccentric anomaly, in the same turn:
@@ -147,10 +156,9 @@ impl Orbit {
     /// The orbit state at a given mean anomaly (radians).
     pub fn state_at_mean_anomaly(&self, mean_anomaly_rad: f64) -> OrbitState {
         let e = self.eccentricity;
-        let ecc = solve_kepler(mean_anomaly_rad, e);
-        // True anomaly from sin E and cos E (one sin_cos, one atan2):
+        let (_, se, ce) = solve_kepler_sin_cos(mean_anomaly_rad, e);
+        // True anomaly from sin E and cos E (one atan2):
         // cos v = (cos E − e)/(1 − e cos E), sin v = √(1 − e²) sin E/(1 − e cos E).
-        let (se, ce) = ecc.sin_cos();
         let v = ((1.0 - e * e).sqrt() * se).atan2(ce - e);
         OrbitState {
             mean_anomaly_rad: wrap_tau(mean_anomaly_rad),

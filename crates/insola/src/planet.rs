@@ -104,6 +104,7 @@ impl Planet {
         let spin = Spin {
             obliquity_rad,
             tilt_rad,
+            tilt_sin_cos: tilt_rad.sin_cos(),
             sense,
             sidereal_day_s,
             solar_day_s,

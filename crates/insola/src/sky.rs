@@ -11,7 +11,7 @@ use glam::DVec3;
 
 use crate::angle::{wrap_pi, wrap_tau};
 use crate::error::{QueryError, check_arg};
-use crate::frames::{altitude_azimuth, enu_from_hour_angle, equatorial_from_ecliptic_longitude};
+use crate::frames::altitude_azimuth;
 use crate::insolation;
 use crate::planet::Planet;
 
@@ -63,6 +63,10 @@ pub struct StarInstant {
     pub toa_flux_w_m2: f64,
     /// Angular radius of the star's disc, radians.
     pub angular_radius_rad: f64,
+    /// Sine of the declination (kept so per-place queries need no trigonometry of it).
+    pub sin_declination: f64,
+    /// Cosine of the declination.
+    pub cos_declination: f64,
 }
 
 /// The star seen from one place at one instant.
@@ -84,9 +88,14 @@ impl Planet {
     /// The place-independent state of the star at world time `t_s` (seconds since zero).
     pub fn star_instant(&self, t_s: f64) -> StarInstant {
         let o = self.orbit.state_at(t_s);
-        let (ra, dec) =
-            equatorial_from_ecliptic_longitude(o.star_longitude_rad, self.spin.tilt_rad);
-        let ra = wrap_tau(ra);
+        // Equatorial coordinates from sin/cos of λ with the tilt's sine and cosine precomputed
+        // (same formula as `frames::equatorial_from_ecliptic_longitude`).
+        let (sl, cl) = o.star_longitude_rad.sin_cos();
+        let (se, ce) = self.spin.tilt_sin_cos;
+        let ra = wrap_tau((ce * sl).atan2(cl));
+        let sin_dec = (se * sl).clamp(-1.0, 1.0);
+        let cos_dec = (1.0 - sin_dec * sin_dec).sqrt();
+        let dec = sin_dec.asin();
         let eot = wrap_pi(self.spin.sense.sign() * (o.star_mean_longitude_rad - ra));
         let distance_m = self.semi_major_axis_m * o.distance_factor;
         StarInstant {
@@ -102,6 +111,8 @@ impl Planet {
             toa_flux_w_m2: self.flux_at_mean_distance_w_m2
                 / (o.distance_factor * o.distance_factor),
             angular_radius_rad: (self.star_radius_m / distance_m).min(1.0).asin(),
+            sin_declination: sin_dec,
+            cos_declination: cos_dec,
         }
     }
 
@@ -110,7 +121,9 @@ impl Planet {
     pub fn star_position_at(&self, instant: &StarInstant, place: Place) -> StarPosition {
         let (sl, cl) = place.latitude_rad.sin_cos();
         let h_geo = instant.sidereal_angle_rad + place.longitude_rad - instant.right_ascension_rad;
-        let enu = enu_from_hour_angle(sl, cl, instant.declination_rad, h_geo);
+        let (sd, cd) = (instant.sin_declination, instant.cos_declination);
+        let (sh, ch) = h_geo.sin_cos();
+        let enu = DVec3::new(-cd * sh, cl * sd - sl * cd * ch, sl * sd + cl * cd * ch);
         let (alt, az) = altitude_azimuth(enu);
         StarPosition {
             altitude_rad: alt,

@@ -46,6 +46,8 @@ pub struct Spin {
     pub obliquity_rad: f64,
     /// Geometric tilt of the north pole from the orbit's normal, `min(ε, π − ε)`, radians.
     pub tilt_rad: f64,
+    /// `(sin, cos)` of the tilt, precomputed for the sky queries.
+    pub tilt_sin_cos: (f64, f64),
     /// Forwards or backwards.
     pub sense: SpinSense,
     /// Rotation period relative to the stars, seconds (> 0).
