@@ -5,6 +5,18 @@ use std::f64::consts::{PI, TAU};
 /// Wraps an angle in radians to `[0, 2π)`.
 #[inline]
 pub fn wrap_tau(a: f64) -> f64 {
+    // Fast paths for angles within a turn of the range (the common case in the sky code);
+    // a floating-point remainder costs as much as a sine.
+    if (0.0..TAU).contains(&a) {
+        return a;
+    }
+    if (-TAU..0.0).contains(&a) {
+        let r = a + TAU;
+        return if r >= TAU { 0.0 } else { r };
+    }
+    if (TAU..2.0 * TAU).contains(&a) {
+        return a - TAU;
+    }
     let r = a.rem_euclid(TAU);
     // rem_euclid can return TAU itself for tiny negative inputs because of rounding.
     if r >= TAU { 0.0 } else { r }
