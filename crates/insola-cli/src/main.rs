@@ -29,6 +29,10 @@ enum Command {
     Year(commands::year::Args),
     /// List the invented worlds built into this command.
     Worlds(commands::list::Args),
+    /// Seasonal climate per latitude band: temperatures, ice, seasons; or a sweep over tilt.
+    Climate(commands::climate::Args),
+    /// Latitude × time-of-year heat map (PNG and/or CSV) of sunlight, daylight or temperature.
+    Map(commands::map::Args),
 }
 
 fn main() -> ExitCode {
@@ -39,6 +43,8 @@ fn main() -> ExitCode {
         Command::Day(a) => commands::day::run(a),
         Command::Year(a) => commands::year::run(a),
         Command::Worlds(a) => commands::list::run(a),
+        Command::Climate(a) => commands::climate::run(a),
+        Command::Map(a) => commands::map::run(a),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,

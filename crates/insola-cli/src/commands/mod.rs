@@ -1,8 +1,11 @@
 //! One module per subcommand.
 
 pub mod check;
+pub mod climate;
+pub mod colour_map;
 pub mod day;
 pub mod list;
+pub mod map;
 pub mod output;
 pub mod sky;
 pub mod year;
