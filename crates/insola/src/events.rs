@@ -154,29 +154,44 @@ impl Planet {
             return;
         }
         let max_step = self.day_s().min(self.year_s()) / 96.0;
-        let n = ((t1_s - t0_s) / max_step).ceil().clamp(1.0, 1.0e7) as usize;
-        let step = (t1_s - t0_s) / n as f64;
         let f = |t: f64| self.star_position(t, place).altitude_rad - threshold_rad;
-        let mut a = f(t0_s);
-        for i in 0..n {
-            let (ta, tb) = (
-                t0_s + i as f64 * step,
-                if i + 1 == n {
-                    t1_s
-                } else {
-                    t0_s + (i + 1) as f64 * step
-                },
-            );
-            let b = f(tb);
-            if (a >= 0.0) != (b >= 0.0) {
-                let t = bisect(ta, tb, a >= 0.0, &f);
-                out.push(Crossing {
-                    t_s: t,
-                    rising: b >= 0.0,
-                });
-            }
-            a = b;
+        crossings_of(&f, t0_s, t1_s, max_step, out);
+    }
+}
+
+/// Every sign change of `f` in `(t0_s, t1_s]`, sampled at most every `max_step` seconds and
+/// refined by bisection; `rising` when `f` goes from negative to non-negative. Deterministic:
+/// the value at an interval's end is the value at the next interval's start, so consecutive
+/// intervals report each crossing exactly once.
+pub(crate) fn crossings_of(
+    f: &dyn Fn(f64) -> f64,
+    t0_s: f64,
+    t1_s: f64,
+    max_step: f64,
+    out: &mut Vec<Crossing>,
+) {
+    if !(t1_s > t0_s) || !(max_step > 0.0) {
+        return;
+    }
+    let n = ((t1_s - t0_s) / max_step).ceil().clamp(1.0, 1.0e7) as usize;
+    let step = (t1_s - t0_s) / n as f64;
+    let mut a = f(t0_s);
+    for i in 0..n {
+        let ta = t0_s + i as f64 * step;
+        let tb = if i + 1 == n {
+            t1_s
+        } else {
+            t0_s + (i + 1) as f64 * step
+        };
+        let b = f(tb);
+        if (a >= 0.0) != (b >= 0.0) {
+            let t = bisect(ta, tb, a >= 0.0, f);
+            out.push(Crossing {
+                t_s: t,
+                rising: b >= 0.0,
+            });
         }
+        a = b;
     }
 }
 

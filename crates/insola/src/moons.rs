@@ -427,6 +427,53 @@ impl Planet {
     }
 }
 
+impl Planet {
+    /// Standard altitude of moonrise and moonset for moon `index`, radians: minus the horizon
+    /// refraction and the moon's mean angular radius (parallax is already in the topocentric
+    /// position).
+    pub fn moon_rise_altitude_rad(&self, index: usize) -> f64 {
+        let r = self
+            .moon_orbits
+            .get(index)
+            .map_or(0.0, |o| angular_radius(o.radius_m, o.distance_m));
+        -(self.horizon_refraction_rad + r)
+    }
+
+    /// Every crossing of `threshold_rad` by moon `index`'s centre in `(t0_s, t1_s]` at
+    /// `place`, in time order (moonrise when `rising`). Samples at most every 1/96 of the
+    /// shortest of the day, the moon's period and the moon's own day over this place.
+    pub fn moon_altitude_crossings_into(
+        &self,
+        index: usize,
+        place: Place,
+        t0_s: f64,
+        t1_s: f64,
+        threshold_rad: f64,
+        out: &mut Vec<crate::events::Crossing>,
+    ) {
+        let Some(orbit) = self.moon_orbits.get(index) else {
+            return;
+        };
+        // The moon's sky period over a place: 1/P = |1/P_rotation − 1/P_moon| (standard).
+        let rot = self.spin.sense.sign() / self.spin.sidereal_day_s;
+        let rel = (rot - 1.0 / orbit.period_s).abs();
+        let moon_day = if rel > 0.0 { 1.0 / rel } else { f64::INFINITY };
+        let max_step = self
+            .day_s()
+            .min(orbit.period_s)
+            .min(moon_day)
+            .min(self.year_s())
+            / 96.0;
+        let f = |t: f64| {
+            let i = self.star_instant(t);
+            self.moon_view(&i, index, place)
+                .map_or(-1.0, |v| v.altitude_rad)
+                - threshold_rad
+        };
+        crate::events::crossings_of(&f, t0_s, t1_s, max_step, out);
+    }
+}
+
 /// Synodic period (new moon to new moon) of a moon of sidereal period `moon_period_s` around
 /// a planet of year `year_s`, seconds: `1/P_syn = 1/P_moon − 1/P_year` (standard; prograde
 /// orbits). Infinite when the two match.
@@ -537,6 +584,27 @@ mod tests {
         let far = WorldSpec::from_ron_str(&text(5.0e6)).unwrap_err();
         assert_eq!(far.field(), Some("moons[0].distance_km"));
         assert!(far.to_string().contains("Hill"));
+    }
+
+    #[test]
+    fn moon_rises_and_sets_about_once_a_day() {
+        let p = world(r#"(name: "Pale", radius_km: 1700, distance_km: 380000, period_days: 27)"#);
+        let place = Place::from_degrees(20.0, 0.0).unwrap();
+        let mut out = Vec::new();
+        p.moon_altitude_crossings_into(
+            0,
+            place,
+            0.0,
+            10.0 * 86_400.0,
+            p.moon_rise_altitude_rad(0),
+            &mut out,
+        );
+        // A moon of 27 days over a 24-hour day rises once per 1/(1/24 h − 1/27 d) ≈ 24.9 h.
+        let rises = out.iter().filter(|c| c.rising).count();
+        assert!((9..=10).contains(&rises), "{rises}");
+        for w in out.windows(2) {
+            assert!(w[0].t_s < w[1].t_s && w[0].rising != w[1].rising);
+        }
     }
 
     #[test]
