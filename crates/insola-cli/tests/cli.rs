@@ -1,0 +1,334 @@
+//! End-to-end checks of the `insola` binary: JSON fields, files written, exit status 2 with a
+//! message (and no panic) on bad input.
+
+use std::path::PathBuf;
+use std::process::{Command, Output};
+
+fn insola(args: &[&str]) -> Output {
+    Command::new(env!("CARGO_BIN_EXE_insola"))
+        .args(args)
+        .output()
+        .expect("runs")
+}
+
+fn json(args: &[&str]) -> serde_json::Value {
+    let out = insola(args);
+    assert!(
+        out.status.success(),
+        "{args:?}: {}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    serde_json::from_slice(&out.stdout).expect("valid JSON")
+}
+
+fn fails_cleanly(args: &[&str]) -> String {
+    let out = insola(args);
+    let err = String::from_utf8_lossy(&out.stderr).to_string();
+    assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
+    assert!(!err.is_empty(), "{args:?}: empty stderr");
+    assert!(!err.contains("panicked"), "{args:?}: {err}");
+    err
+}
+
+fn tmp(name: &str) -> PathBuf {
+    let dir = std::env::temp_dir().join(format!("insola-cli-tests-{}", std::process::id()));
+    std::fs::create_dir_all(&dir).unwrap();
+    dir.join(name)
+}
+
+fn has(v: &serde_json::Value, fields: &[&str]) {
+    for f in fields {
+        assert!(v.get(f).is_some(), "missing `{f}` in {v}");
+    }
+}
+
+#[test]
+fn climate_json_has_sane_bands() {
+    let v = json(&["climate", "verdance", "--json"]);
+    has(
+        &v,
+        &[
+            "bands",
+            "global_mean_c",
+            "ice_edge_lat_deg",
+            "years_to_equilibrium",
+            "converged",
+        ],
+    );
+    let bands = v["bands"].as_array().unwrap();
+    assert_eq!(bands.len(), 90);
+    let mut last_lat = -91.0;
+    for b in bands {
+        has(
+            b,
+            &[
+                "lat_deg",
+                "mean_c",
+                "min_c",
+                "max_c",
+                "ice_fraction",
+                "summary",
+            ],
+        );
+        let lat = b["lat_deg"].as_f64().unwrap();
+        let (mean, lo, hi) = (
+            b["mean_c"].as_f64().unwrap(),
+            b["min_c"].as_f64().unwrap(),
+            b["max_c"].as_f64().unwrap(),
+        );
+        let ice = b["ice_fraction"].as_f64().unwrap();
+        assert!(lat > last_lat && lat.abs() < 90.0);
+        last_lat = lat;
+        assert!(lo <= mean && mean <= hi && lo > -100.0 && hi < 100.0, "{b}");
+        assert!((0.0..=1.0).contains(&ice));
+    }
+    let g = v["global_mean_c"].as_f64().unwrap();
+    assert!(g > -20.0 && g < 40.0);
+    let edges = &v["ice_edge_lat_deg"];
+    has(edges, &["north", "south"]);
+    assert!(v["years_to_equilibrium"].as_u64().unwrap() >= 1);
+    // Tessaly Reach (tilt 62°): poles warmer than the equator over the year.
+    let t = json(&["climate", "tessaly-reach", "--json"]);
+    let tb = t["bands"].as_array().unwrap();
+    assert!(tb[89]["mean_c"].as_f64().unwrap() > tb[45]["mean_c"].as_f64().unwrap());
+}
+
+#[test]
+fn climate_text_and_sweep() {
+    let out = insola(&["climate", "oromar"]);
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        text.contains("global mean") && text.contains("summary"),
+        "{text}"
+    );
+    let v = json(&[
+        "climate",
+        "verdance",
+        "--json",
+        "--sweep-obliquity",
+        "0:60:30",
+    ]);
+    let rows = v.as_array().unwrap();
+    assert_eq!(rows.len(), 3);
+    for r in rows {
+        has(
+            r,
+            &[
+                "obliquity_deg",
+                "global_mean_c",
+                "ice_edge_lat_deg",
+                "years_to_equilibrium",
+            ],
+        );
+    }
+    // No terminal here: no progress bar drawn on stderr.
+    let out = insola(&["climate", "verdance", "--sweep-obliquity", "10:20:10"]);
+    assert!(out.status.success());
+    assert!(
+        out.stderr.is_empty(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    fails_cleanly(&["climate", "verdance", "--sweep-obliquity", "0:90"]);
+    fails_cleanly(&["climate", "verdance", "--sweep-obliquity", "0:400:10"]);
+}
+
+#[test]
+fn map_writes_png_and_csv() {
+    for (world, q) in [
+        ("verdance", "temperature"),
+        ("oromar", "daylength"),
+        ("tessaly-reach", "insolation"),
+    ] {
+        let png = tmp(&format!("{world}-{q}.png"));
+        let csv = tmp(&format!("{world}-{q}.csv"));
+        let out = insola(&[
+            "map",
+            world,
+            "--quantity",
+            q,
+            "--lats",
+            "36",
+            "--days",
+            "48",
+            "--png",
+            png.to_str().unwrap(),
+            "--csv",
+            csv.to_str().unwrap(),
+        ]);
+        assert!(
+            out.status.success(),
+            "{}",
+            String::from_utf8_lossy(&out.stderr)
+        );
+        let img = image::open(&png).expect("a PNG");
+        assert_eq!((img.width(), img.height()), (960, 540));
+        let text = std::fs::read_to_string(&csv).unwrap();
+        let mut lines = text.lines();
+        assert!(
+            lines
+                .next()
+                .unwrap()
+                .starts_with("lat_deg,year_fraction,day,")
+        );
+        assert_eq!(lines.count(), 36 * 48);
+    }
+}
+
+#[test]
+fn map_rejects_bad_arguments() {
+    let png = tmp("never.png");
+    let p = png.to_str().unwrap();
+    fails_cleanly(&["map", "verdance", "--quantity", "rainfall", "--png", p]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--quantity",
+        "insolation",
+        "--lats",
+        "1",
+        "--png",
+        p,
+    ]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--quantity",
+        "insolation",
+        "--days",
+        "0",
+        "--png",
+        p,
+    ]);
+    fails_cleanly(&["map", "verdance", "--quantity", "insolation"]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--quantity",
+        "insolation",
+        "--png",
+        "/nonexistent-folder/x.png",
+    ]);
+    fails_cleanly(&[
+        "map",
+        "no-such-world",
+        "--quantity",
+        "insolation",
+        "--png",
+        p,
+    ]);
+}
+
+#[test]
+fn bad_world_files_exit_2_naming_the_field() {
+    // The corpus of broken worlds in the core crate; the first line says what is expected.
+    let dir = concat!(env!("CARGO_MANIFEST_DIR"), "/../insola/tests/bad-worlds");
+    let mut n = 0;
+    for entry in std::fs::read_dir(dir).unwrap() {
+        let path = entry.unwrap().path();
+        let text = std::fs::read_to_string(&path).unwrap();
+        let expect = text
+            .lines()
+            .next()
+            .unwrap_or("")
+            .trim_start_matches("// expect:")
+            .trim();
+        let err = fails_cleanly(&["check", path.to_str().unwrap()]);
+        if let Some(field) = expect.strip_prefix("field:") {
+            assert!(err.contains(field), "{}: {err}", path.display());
+        } else if let Some(name) = expect.strip_prefix("unknown:") {
+            assert!(err.contains(name), "{}: {err}", path.display());
+        } else {
+            assert!(err.contains("line"), "{}: {err}", path.display());
+        }
+        n += 1;
+    }
+    assert!(n >= 30);
+    // A climate section with a bad value, through every command that loads a world.
+    let world = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/../insola/tests/bad-worlds/climate-albedo-over-one.world.ron"
+    );
+    let err = fails_cleanly(&["climate", world]);
+    assert!(err.contains("climate.albedo_a0"), "{err}");
+    let png = tmp("bad.png");
+    let err = fails_cleanly(&[
+        "map",
+        world,
+        "--quantity",
+        "temperature",
+        "--png",
+        png.to_str().unwrap(),
+    ]);
+    assert!(err.contains("climate.albedo_a0"), "{err}");
+}
+
+#[test]
+fn check_sky_and_day_json_fields() {
+    let c = json(&["check", "verdance", "--json"]);
+    has(
+        &c,
+        &[
+            "solar_day_h",
+            "sidereal_day_h",
+            "year_solar_days",
+            "retrograde",
+            "tropic_lat_deg",
+            "polar_circle_lat_deg",
+        ],
+    );
+    assert_eq!(json(&["check", "oromar", "--json"])["retrograde"], true);
+    let s = json(&[
+        "sky", "verdance", "--lat", "35", "--lon", "-20", "--day", "100.4", "--json",
+    ]);
+    has(
+        &s,
+        &[
+            "altitude_deg",
+            "azimuth_deg",
+            "declination_deg",
+            "right_ascension_deg",
+            "hour_angle_deg",
+            "ecliptic_longitude_deg",
+            "distance_au",
+            "equation_of_time_min",
+            "toa_insolation_w_m2",
+            "direction_enu",
+            "day",
+            "direct_illuminance_lux",
+            "sky_illuminance_lux",
+            "light_rgb_linear",
+            "light_cct_k",
+            "twilight",
+            "moons",
+        ],
+    );
+    let moons = s["moons"].as_array().unwrap();
+    assert_eq!(moons.len(), 2);
+    for m in moons {
+        has(
+            m,
+            &[
+                "altitude_deg",
+                "azimuth_deg",
+                "illuminated_fraction",
+                "illuminance_lux",
+                "eclipse_fraction",
+            ],
+        );
+    }
+    let d = json(&["day", "verdance", "--lat", "50", "--day", "20", "--json"]);
+    has(
+        &d,
+        &[
+            "sunrise_h",
+            "sunset_h",
+            "transit_h",
+            "day_length_h",
+            "polar",
+        ],
+    );
+    fails_cleanly(&["sky", "verdance", "--lat", "95", "--day", "1"]);
+    fails_cleanly(&["day", "verdance", "--lat", "10"]);
+}
