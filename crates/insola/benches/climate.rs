@@ -1,13 +1,19 @@
-//! Climate model timings: one model year, a full cold-start equilibrium, and a batch of local
-//! temperature queries. Invented demo world (not Earth): tilt 31°, e 0.05, S0 1300 W m⁻².
+//! Climate model timings: one model year, a full equilibrium (from the annual-mean steady
+//! state, the default start), the same for the shipped invented worlds, and a batch of one
+//! million local temperature queries. Invented demo world (not Earth): tilt 31°, e 0.05,
+//! S0 1300 W m⁻². After the criterion groups a summary prints the equilibrium time as a
+//! multiple of one model year measured in the same run, against the 16.7 ms of a 60 fps frame.
 
 use std::hint::black_box;
 
-use criterion::{Criterion, criterion_main};
+use std::time::Instant;
+
+use criterion::Criterion;
 use insola::climate::{
     AnnualForcing, BandInsolation, ClimateGrid, ClimateSpec, EnergyBalanceModel, SeasonSample,
     equilibrate,
 };
+use insola::{Planet, WorldSpec};
 
 /// Forcing of an invented world on a Keplerian orbit, 360 samples from perihelion.
 fn demo_forcing() -> AnnualForcing {
@@ -46,9 +52,15 @@ fn bench(c: &mut Criterion) {
     c.bench_function("climate/one_model_year_90_bands", |b| {
         b.iter(|| model.run_year(black_box(&mut state), &mut traj, &mut scratch))
     });
-    c.bench_function("climate/equilibrate_cold_start_90_bands", |b| {
+    c.bench_function("climate/equilibrate_90_bands", |b| {
         b.iter(|| equilibrate(black_box(&spec), black_box(&forcing)).unwrap())
     });
+    for name in ["verdance", "tessaly-reach", "oromar"] {
+        let p = world(name);
+        c.bench_function(&format!("climate/equilibrate_world_{name}"), |b| {
+            b.iter(|| black_box(&p).equilibrate_climate().unwrap())
+        });
+    }
     let cycle = equilibrate(&spec, &forcing).unwrap();
     let n = 1_000_000;
     let lats: Vec<f64> = (0..n).map(|i| -1.5 + 3.0 * i as f64 / n as f64).collect();
@@ -62,6 +74,96 @@ fn bench(c: &mut Criterion) {
                 .unwrap()
         })
     });
+}
+
+/// A shipped invented world.
+fn world(name: &str) -> Planet {
+    let path = format!(
+        "{}/../../assets/worlds/{name}.world.ron",
+        env!("CARGO_MANIFEST_DIR")
+    );
+    Planet::new(&WorldSpec::from_path(&path).unwrap()).unwrap()
+}
+
+/// Median wall time of `f` over `runs` calls, seconds.
+fn median_s(runs: usize, mut f: impl FnMut()) -> f64 {
+    let mut t: Vec<f64> = (0..runs)
+        .map(|_| {
+            let start = Instant::now();
+            f();
+            start.elapsed().as_secs_f64()
+        })
+        .collect();
+    t.sort_by(f64::total_cmp);
+    t[runs / 2]
+}
+
+/// Equilibrium time against one model year, and the million-place batch, in one run.
+fn summary() {
+    let spec = ClimateSpec::default();
+    let forcing = demo_forcing();
+    let grid = ClimateGrid::new(spec.bands).unwrap();
+    let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
+    let model = EnergyBalanceModel::new(&spec, ins).unwrap();
+    let nb = grid.len();
+    let mut state = model.steady_annual_mean();
+    let mut traj = vec![0.0; spec.steps_per_year * nb];
+    let mut scratch = vec![0.0; nb];
+    let year = median_s(201, || {
+        model.run_year(black_box(&mut state), &mut traj, &mut scratch)
+    });
+    println!("\nclimate summary (median of repeated runs, this machine, one thread):");
+    println!(
+        "  one model year, {nb} bands x {} steps: {:.1} us",
+        spec.steps_per_year,
+        year * 1e6
+    );
+    let cycle = equilibrate(&spec, &forcing).unwrap();
+    let eq = median_s(51, || {
+        black_box(equilibrate(black_box(&spec), black_box(&forcing)).unwrap());
+    });
+    println!(
+        "  equilibrium, demo forcing: {:.3} ms = {:.1} model years of time ({} years run), {:.1}% of a 60 fps frame",
+        eq * 1e3,
+        eq / year,
+        cycle.years_to_equilibrium(),
+        eq / (1.0 / 60.0) * 100.0
+    );
+    for name in ["verdance", "tessaly-reach", "oromar"] {
+        let p = world(name);
+        let c = p.equilibrate_climate().unwrap();
+        let t = median_s(21, || {
+            black_box(black_box(&p).equilibrate_climate().unwrap());
+        });
+        println!(
+            "  equilibrium, {name}: {:.3} ms = {:.1} model years of time ({} years run)",
+            t * 1e3,
+            t / year,
+            c.years_to_equilibrium()
+        );
+    }
+    let n = 1_000_000;
+    let lats: Vec<f64> = (0..n).map(|i| -1.5 + 3.0 * i as f64 / n as f64).collect();
+    let has: Vec<f64> = (0..n).map(|i| i as f64 * 0.001).collect();
+    let elev = vec![250.0; n];
+    let mut out = vec![0.0; n];
+    let inst = cycle.instant(0.3, 86400.0).unwrap();
+    let batch = median_s(11, || {
+        inst.temperatures_c(&lats, &has, &elev, black_box(&mut out))
+            .unwrap()
+    });
+    println!(
+        "  local temperature, 1,000,000 places: {:.2} ms ({:.1} ns per place)",
+        batch * 1e3,
+        batch * 1e9 / n as f64
+    );
+}
+
+/// Criterion's groups, then the summary.
+fn main() {
+    group::benches();
+    Criterion::default().configure_from_args().final_summary();
+    summary();
 }
 
 /// The benchmark group (in a private module so the macro's generated function needs no docs).
@@ -79,4 +181,3 @@ mod group {
         targets = super::bench
     }
 }
-criterion_main!(group::benches);
