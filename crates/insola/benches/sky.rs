@@ -6,7 +6,7 @@
 //! * daily-mean insolation on 1800 latitudes × 3650 days vs the straightforward per-cell loop;
 //! * scaling: batch directions for 10k / 100k / 1M places (should be linear).
 
-use criterion::{BenchmarkId, Criterion, Throughput, black_box, criterion_group, criterion_main};
+use criterion::{BenchmarkId, Criterion, Throughput, black_box, criterion_main};
 use glam::DVec3;
 use insola::batch::PlaceBatch;
 use insola::insolation::{daily_mean_grid_w_m2, daily_mean_w_m2};
@@ -117,5 +117,13 @@ fn insolation_grid(c: &mut Criterion) {
     g.finish();
 }
 
-criterion_group!(benches, star_position, batch_directions, insolation_grid);
-criterion_main!(benches);
+/// The benchmark group (in a private module so the macro's generated function needs no docs).
+mod group {
+    criterion::criterion_group!(
+        benches,
+        super::star_position,
+        super::batch_directions,
+        super::insolation_grid
+    );
+}
+criterion_main!(group::benches);

@@ -78,8 +78,8 @@ impl Planet {
     ) {
         let (sd, cd) = (instant.sin_declination, instant.cos_declination);
         let n = batch.len().min(out.len());
-        for k in 0..n {
-            out[k] = direction(
+        for (k, o) in out[..n].iter_mut().enumerate() {
+            *o = direction(
                 instant,
                 batch.sin_lat[k],
                 batch.cos_lat[k],

@@ -150,9 +150,6 @@ impl Planet {
         threshold_rad: f64,
         out: &mut Vec<Crossing>,
     ) {
-        if !(t1_s > t0_s) {
-            return;
-        }
         let max_step = self.day_s().min(self.year_s()) / 96.0;
         let f = |t: f64| self.star_position(t, place).altitude_rad - threshold_rad;
         crossings_of(&f, t0_s, t1_s, max_step, out);
@@ -170,7 +167,10 @@ pub(crate) fn crossings_of(
     max_step: f64,
     out: &mut Vec<Crossing>,
 ) {
-    if !(t1_s > t0_s) || !(max_step > 0.0) {
+    // Written to reject NaN as well as empty intervals.
+    if t1_s.partial_cmp(&t0_s) != Some(std::cmp::Ordering::Greater)
+        || max_step.partial_cmp(&0.0) != Some(std::cmp::Ordering::Greater)
+    {
         return;
     }
     let n = ((t1_s - t0_s) / max_step).ceil().clamp(1.0, 1.0e7) as usize;
