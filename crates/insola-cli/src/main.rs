@@ -2,6 +2,14 @@
 //!
 //! Every command takes `--json`. Errors go to standard error with exit status 2.
 
+/// Prints a line on standard output; a closed pipe (`insola year … | head`) ends the program
+/// quietly instead of panicking as `println!` would.
+macro_rules! say {
+    ($($arg:tt)*) => {
+        $crate::write_line(format_args!($($arg)*))
+    };
+}
+
 mod commands;
 mod worlds;
 
@@ -33,6 +41,19 @@ enum Command {
     Climate(commands::climate::Args),
     /// Latitude × time-of-year heat map (PNG and/or CSV) of sunlight, daylight or temperature.
     Map(commands::map::Args),
+}
+
+/// Writes one line to standard output; exits with status 0 on a closed pipe and 2 on any other
+/// write error.
+pub fn write_line(args: std::fmt::Arguments<'_>) {
+    use std::io::Write;
+    if let Err(e) = writeln!(std::io::stdout().lock(), "{args}") {
+        if e.kind() == std::io::ErrorKind::BrokenPipe {
+            std::process::exit(0);
+        }
+        eprintln!("insola: cannot write output: {e}");
+        std::process::exit(2);
+    }
 }
 
 fn main() -> ExitCode {

@@ -122,20 +122,20 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&f);
     }
-    println!("{} — valid", f.name);
+    say!("{} — valid", f.name);
     if p.spec.reference {
-        println!("  (validation reference world, not game content)");
+        say!("  (validation reference world, not game content)");
     }
     match f.solar_day_h {
-        Some(h) => println!("  solar day        {h:.4} h"),
-        None => println!("  solar day        none (tidally locked)"),
+        Some(h) => say!("  solar day        {h:.4} h"),
+        None => say!("  solar day        none (tidally locked)"),
     }
-    println!("  sidereal day     {:.4} h", f.sidereal_day_h);
-    println!("  year             {:.3} standard days", f.year_days);
+    say!("  sidereal day     {:.4} h", f.sidereal_day_h);
+    say!("  year             {:.3} standard days", f.year_days);
     if let Some(n) = f.year_solar_days {
-        println!("  solar days/year  {n:.3}");
+        say!("  solar days/year  {n:.3}");
     }
-    println!(
+    say!(
         "  spin             {}",
         if f.retrograde {
             "backwards (star rises in the west)"
@@ -143,22 +143,22 @@ pub fn run(args: Args) -> Result<(), String> {
             "forwards (star rises in the east)"
         }
     );
-    println!("  tropics          ±{:.2}°", f.tropic_lat_deg);
-    println!("  polar circles    ±{:.2}°", f.polar_circle_lat_deg);
+    say!("  tropics          ±{:.2}°", f.tropic_lat_deg);
+    say!("  polar circles    ±{:.2}°", f.polar_circle_lat_deg);
     let [a, b, c, d] = f.season_lengths_days;
-    println!(
-        "  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d"
-    );
-    println!(
+    say!("  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d");
+    say!(
         "  flux             {:.1} W/m² at mean distance ({:.2}× swing over the orbit)",
-        f.flux_at_mean_distance_w_m2, f.flux_swing_ratio
+        f.flux_at_mean_distance_w_m2,
+        f.flux_swing_ratio
     );
-    println!(
+    say!(
         "  star disc        {:.3}° across; rises at {:.3}°",
-        f.star_angular_diameter_deg, f.standard_rise_altitude_deg
+        f.star_angular_diameter_deg,
+        f.standard_rise_altitude_deg
     );
     for w in &f.warnings {
-        println!("  warning: {w}");
+        say!("  warning: {w}");
     }
     Ok(())
 }

@@ -234,13 +234,20 @@ fn sweep(args: &Args, p: &Planet, text: &str) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&rows);
     }
-    println!("{} — climate against tilt", p.spec.name);
-    println!(
+    say!("{} — climate against tilt", p.spec.name);
+    say!(
         "{:>7} {:>9} {:>8} {:>9} {:>9} {:>8} {:>8} {:>6}",
-        "tilt °", "global °C", "ice %", "edge N °", "edge S °", "warm °C", "cold °C", "years"
+        "tilt °",
+        "global °C",
+        "ice %",
+        "edge N °",
+        "edge S °",
+        "warm °C",
+        "cold °C",
+        "years"
     );
     for r in &rows {
-        println!(
+        say!(
             "{:>7.1} {:>9.1} {:>8.1} {:>9} {:>9} {:>8.1} {:>8.1} {:>6}{}",
             r.obliquity_deg,
             r.global_mean_c,
@@ -271,18 +278,19 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&r);
     }
-    println!(
+    say!(
         "{} — seasonal climate (tilt {:.1}°)",
-        r.name, r.obliquity_deg
+        r.name,
+        r.obliquity_deg
     );
-    println!(
+    say!(
         "  global mean {:.1} °C, ice {:.0}% of area-year, ice edges N {} S {}",
         r.global_mean_c,
         100.0 * r.ice_area_fraction,
         opt_deg(r.ice_edge_lat_deg.north),
         opt_deg(r.ice_edge_lat_deg.south)
     );
-    println!(
+    say!(
         "  {} after {} model years (last change {:.4} K)",
         if r.converged {
             "repeating year reached"
@@ -292,9 +300,13 @@ pub fn run(args: Args) -> Result<(), String> {
         r.years_to_equilibrium,
         r.residual_k
     );
-    println!(
+    say!(
         "{:>7} {:>7} {:>7} {:>7} {:>5}  summary",
-        "lat °", "mean", "min", "max", "ice%"
+        "lat °",
+        "mean",
+        "min",
+        "max",
+        "ice%"
     );
     // North at the top, as on a map; every band with --all-bands, else the bands nearest
     // every 10° of latitude.
@@ -310,7 +322,7 @@ pub fn run(args: Args) -> Result<(), String> {
     };
     let shown = rows.len();
     for b in rows {
-        println!(
+        say!(
             "{:>7.1} {:>7.1} {:>7.1} {:>7.1} {:>5.0}  {}",
             b.lat_deg,
             b.mean_c,
@@ -321,7 +333,7 @@ pub fn run(args: Args) -> Result<(), String> {
         );
     }
     if shown < n {
-        println!("  ({shown} of {n} bands shown, nearest every 10°; --all-bands for all)");
+        say!("  ({shown} of {n} bands shown, nearest every 10°; --all-bands for all)");
     }
     Ok(())
 }

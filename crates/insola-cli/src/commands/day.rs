@@ -126,14 +126,18 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&r);
     }
     use super::output::hm;
-    println!(
+    say!(
         "{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)",
-        p.spec.name, lat, args.lon, day, r.local_day_h
+        p.spec.name,
+        lat,
+        args.lon,
+        day,
+        r.local_day_h
     );
     match r.polar {
-        Some(Polar::Day) => println!("  the star never sets (polar day)"),
-        Some(Polar::Night) => println!("  the star never rises (polar night)"),
-        None => println!(
+        Some(Polar::Day) => say!("  the star never sets (polar day)"),
+        Some(Polar::Night) => say!("  the star never rises (polar night)"),
+        None => say!(
             "  rise {}   transit {}   set {}",
             hm(r.sunrise_h),
             hm(r.transit_h),
@@ -141,20 +145,20 @@ pub fn run(args: Args) -> Result<(), String> {
         ),
     }
     if let Some(a) = r.transit_altitude_deg {
-        println!("  transit altitude {a:.2}°");
+        say!("  transit altitude {a:.2}°");
     }
-    println!("  star up for {}", hm(Some(r.day_length_h)));
-    println!(
+    say!("  star up for {}", hm(Some(r.day_length_h)));
+    say!(
         "  civil twilight        {} – {}",
         hm(r.civil_dawn_h),
         hm(r.civil_dusk_h)
     );
-    println!(
+    say!(
         "  nautical twilight     {} – {}",
         hm(r.nautical_dawn_h),
         hm(r.nautical_dusk_h)
     );
-    println!(
+    say!(
         "  astronomical twilight {} – {}",
         hm(r.astronomical_dawn_h),
         hm(r.astronomical_dusk_h)

@@ -41,7 +41,7 @@ pub fn run(args: Args) -> Result<(), String> {
         } else {
             ""
         };
-        println!("{:<16} {}{mark}: {}", e.name, e.title, e.description);
+        say!("{:<16} {}{mark}: {}", e.name, e.title, e.description);
     }
     Ok(())
 }

@@ -547,12 +547,15 @@ pub fn run(args: Args) -> Result<(), String> {
             csv: args.csv.clone(),
         });
     }
-    println!(
+    say!(
         "{}: {quantity} from {min:.1} to {max:.1} {} on {} latitudes × {} times",
-        p.spec.name, st.unit, args.lats, args.days
+        p.spec.name,
+        st.unit,
+        args.lats,
+        args.days
     );
     for f in [&args.png, &args.csv].into_iter().flatten() {
-        println!("  wrote {f}");
+        say!("  wrote {f}");
     }
     Ok(())
 }

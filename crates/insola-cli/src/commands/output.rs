@@ -5,7 +5,7 @@ use serde::Serialize;
 /// Prints a value as pretty JSON on standard output.
 pub fn print_json<T: Serialize>(value: &T) -> Result<(), String> {
     let text = serde_json::to_string_pretty(value).map_err(|e| e.to_string())?;
-    println!("{text}");
+    say!("{text}");
     Ok(())
 }
 

@@ -177,32 +177,44 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&r);
     }
-    println!(
+    say!(
         "{} at {:.3}°, {:.3}° — day {:.4} (local mean time {:.2} h)",
-        p.spec.name, lat, args.lon, r.day, r.local_mean_time_h
+        p.spec.name,
+        lat,
+        args.lon,
+        r.day,
+        r.local_mean_time_h
     );
-    println!(
+    say!(
         "  star      altitude {:8.3}°  azimuth {:8.3}°  hour angle {:8.3}°",
-        r.altitude_deg, r.azimuth_deg, r.hour_angle_deg
+        r.altitude_deg,
+        r.azimuth_deg,
+        r.hour_angle_deg
     );
-    println!(
+    say!(
         "            declination {:.3}°  right ascension {:.3}°  ecliptic longitude {:.3}°",
-        r.declination_deg, r.right_ascension_deg, r.ecliptic_longitude_deg
+        r.declination_deg,
+        r.right_ascension_deg,
+        r.ecliptic_longitude_deg
     );
-    println!(
+    say!(
         "            distance {:.5} AU  equation of time {:+.2} min",
-        r.distance_au, r.equation_of_time_min
+        r.distance_au,
+        r.equation_of_time_min
     );
-    println!(
+    say!(
         "  light     direct {:.4e} lx  sky {:.4e} lx  CCT {:.0} K  twilight: {}",
-        r.direct_illuminance_lux, r.sky_illuminance_lux, r.light_cct_k, r.twilight
+        r.direct_illuminance_lux,
+        r.sky_illuminance_lux,
+        r.light_cct_k,
+        r.twilight
     );
-    println!(
+    say!(
         "            top-of-atmosphere insolation {:.1} W/m²",
         r.toa_insolation_w_m2
     );
     for m in &r.moons {
-        println!(
+        say!(
             "  moon {:<10} altitude {:7.2}°  azimuth {:7.2}°  lit {:5.1} %  {:.3e} lx{}",
             m.name,
             m.altitude_deg,

@@ -78,22 +78,30 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&rows);
     }
     if args.csv {
-        println!("day,year_fraction,day_length_h,noon_altitude_deg,insolation_w_m2");
+        say!("day,year_fraction,day_length_h,noon_altitude_deg,insolation_w_m2");
         for r in &rows {
-            println!(
+            say!(
                 "{},{:.6},{:.4},{:.4},{:.3}",
-                r.day, r.year_fraction, r.day_length_h, r.noon_altitude_deg, r.insolation_w_m2
+                r.day,
+                r.year_fraction,
+                r.day_length_h,
+                r.noon_altitude_deg,
+                r.insolation_w_m2
             );
         }
         return Ok(());
     }
-    println!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.lon);
-    println!(
+    say!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.lon);
+    say!(
         "{:>6} {:>8} {:>10} {:>12} {:>12}",
-        "day", "year", "daylight", "noon alt °", "insol W/m²"
+        "day",
+        "year",
+        "daylight",
+        "noon alt °",
+        "insol W/m²"
     );
     for r in &rows {
-        println!(
+        say!(
             "{:>6} {:>8.4} {:>10} {:>12.2} {:>12.1}",
             r.day,
             r.year_fraction,
