@@ -1,0 +1,250 @@
+//! The sky state: everything that lights the scene's reference place this frame.
+//!
+//! [`SkyState`] holds the core's full [`LightingState`] for the reference place of
+//! [`InsolaSettings`] at the clock's instant — the star, the sky's diffuse light, each moon, the
+//! twilight phase — plus the calendar date and the season, in reflected fields so inspectors
+//! can show them. It is recomputed every frame in
+//! [`InsolaSystems::ComputeSky`](crate::InsolaSystems).
+
+use bevy::color::LinearRgba;
+use bevy::math::DVec3;
+use bevy::prelude::*;
+use insola::Planet;
+use insola::lighting::{BodyLight, LightingState};
+
+use crate::clock::WorldClock;
+use crate::season::SeasonOfYear;
+use crate::settings::{InsolaSettings, SceneCompass};
+use crate::world_asset::ActiveWorld;
+
+/// How light the sky is at the reference place, by the star's altitude.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub enum DaylightPhase {
+    /// The star is up (above the standard rise altitude).
+    Day,
+    /// The star is down by at most 6°.
+    CivilTwilight,
+    /// Down by 6° to 12°.
+    NauticalTwilight,
+    /// Down by 12° to 18°.
+    AstronomicalTwilight,
+    /// Down by more than 18°. Default (before a world is loaded).
+    #[default]
+    Night,
+}
+
+impl DaylightPhase {
+    fn from_core(phase: insola::light::TwilightPhase) -> DaylightPhase {
+        use insola::light::TwilightPhase as T;
+        match phase {
+            T::Day => DaylightPhase::Day,
+            T::Civil => DaylightPhase::CivilTwilight,
+            T::Nautical => DaylightPhase::NauticalTwilight,
+            T::Astronomical => DaylightPhase::AstronomicalTwilight,
+            T::Night => DaylightPhase::Night,
+        }
+    }
+}
+
+/// One body (the star or a moon) as the scene sees it.
+#[derive(Debug, Clone, Copy, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyBody {
+    /// Unit vector from the scene toward the body, in scene axes (see [`SceneCompass`]).
+    pub direction: Vec3,
+    /// Unit vector toward the body in the local east-north-up frame (`f64`, from the core).
+    pub direction_enu: DVec3,
+    /// Geometric altitude of the body's centre, radians.
+    pub altitude_rad: f64,
+    /// Azimuth clockwise from north, radians.
+    pub azimuth_rad: f64,
+    /// Illuminance on a surface facing the body, lux, in the mode of
+    /// [`InsolaSettings::attenuation`] (0 when the body is down).
+    pub illuminance_lux: f64,
+    /// Colour of the light, linear sRGB with the largest channel 1.
+    pub color: LinearRgba,
+    /// Correlated colour temperature, kelvin.
+    pub cct_k: f64,
+    /// Angular radius of the disc, radians.
+    pub angular_radius_rad: f64,
+    /// `true` while any part of the disc is above the horizon (for the star: its centre is
+    /// above the standard rise altitude, refraction included).
+    pub above_horizon: bool,
+}
+
+impl SkyBody {
+    fn from_core(body: &BodyLight, compass: &SceneCompass, rise_altitude_rad: f64) -> SkyBody {
+        let [r, g, b] = body.color_linear_rgb;
+        SkyBody {
+            direction: compass.to_scene(body.direction_enu).normalize_or_zero(),
+            direction_enu: body.direction_enu,
+            altitude_rad: body.altitude_rad,
+            azimuth_rad: body.azimuth_rad,
+            illuminance_lux: body.illuminance_lux,
+            color: LinearRgba::rgb(r as f32, g as f32, b as f32),
+            cct_k: body.cct_k,
+            angular_radius_rad: body.angular_radius_rad,
+            above_horizon: body.altitude_rad > rise_altitude_rad,
+        }
+    }
+
+    /// Illuminance this body gives a horizontal surface, lux.
+    pub fn horizontal_illuminance_lux(&self) -> f64 {
+        self.illuminance_lux * self.direction_enu.z.max(0.0)
+    }
+}
+
+/// One moon as the scene sees it.
+#[derive(Debug, Clone, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyMoon {
+    /// The moon's name from the world file.
+    pub name: String,
+    /// Direction and light.
+    pub body: SkyBody,
+    /// Phase angle (star–moon–observer), radians: 0 full, π new.
+    pub phase_angle_rad: f64,
+    /// Illuminated fraction of the disc, 0–1.
+    pub illuminated_fraction: f64,
+    /// Fraction of the moon's light removed by the planet's shadow, 0–1.
+    pub eclipse_fraction: f64,
+}
+
+/// The calendar reading of the clock's instant.
+#[derive(Debug, Clone, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyDate {
+    /// Year number on the world's calendar.
+    pub year: i64,
+    /// Solar day within the year, from 0.
+    pub day_of_year: u64,
+    /// Month name, if the world's calendar has months.
+    pub month_name: Option<String>,
+    /// Day within the month (or year, without months), from 1.
+    pub day_of_month: u64,
+    /// Hours since local mean midnight at the prime meridian.
+    pub hour_of_day: f64,
+    /// Fraction of the year elapsed, `[0, 1)`.
+    pub year_fraction: f64,
+}
+
+impl SkyDate {
+    /// Clock time as `HH:MM` in hours of the world's day (which may have more than 24).
+    pub fn clock(&self) -> String {
+        let total_min = (self.hour_of_day * 60.0).floor().max(0.0) as u64;
+        format!("{:02}:{:02}", total_min / 60, total_min % 60)
+    }
+}
+
+/// The sky at the reference place this frame.
+///
+/// `ready` is `false` until a world is loaded; then every field is this frame's.
+///
+/// ```
+/// use bevy::prelude::*;
+/// use bevy_insola::{SkyState, DaylightPhase};
+/// fn report(sky: Res<SkyState>) {
+///     if sky.ready && sky.phase == DaylightPhase::Day {
+///         info!("star at {:.1}°, {:.0} lux", sky.star.altitude_rad.to_degrees(), sky.star.illuminance_lux);
+///     }
+/// }
+/// # App::new().init_resource::<SkyState>().add_systems(Update, report).update();
+/// ```
+#[derive(Resource, Debug, Clone, PartialEq, Default, Reflect)]
+#[reflect(Resource, Debug, Default, Clone)]
+pub struct SkyState {
+    /// `true` once a world is loaded and the state has been computed.
+    pub ready: bool,
+    /// World time of this state, seconds since time zero.
+    pub world_time_s: f64,
+    /// The star.
+    pub star: SkyBody,
+    /// Fraction of the star's disc covered by moons, 0–1 (already applied to its light).
+    pub star_eclipse_fraction: f64,
+    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    pub toa_insolation_w_m2: f64,
+    /// Diffuse light of the sky dome on a horizontal surface, lux (always as at the ground).
+    pub sky_illuminance_lux: f64,
+    /// Colour of the sky's diffuse light, linear sRGB with the largest channel 1.
+    pub sky_color: LinearRgba,
+    /// Each moon, in world-file order.
+    pub moons: Vec<SkyMoon>,
+    /// Day, a twilight, or night.
+    pub phase: DaylightPhase,
+    /// Total illuminance on a horizontal surface (star, sky and moons), lux; what an
+    /// incident-light meter lying on the ground reads. Feeds [`crate::ExposureFollowsSky`].
+    pub horizontal_illuminance_lux: f64,
+    /// The calendar date.
+    pub date: SkyDate,
+    /// The season in the reference place's hemisphere.
+    pub season: SeasonOfYear,
+    /// The core's full lighting state (not reflected).
+    #[reflect(ignore)]
+    pub lighting: Option<LightingState>,
+}
+
+impl SkyState {
+    /// Computes the sky state from the core for `t_s` and the settings' reference place.
+    pub fn compute(planet: &Planet, t_s: f64, settings: &InsolaSettings) -> SkyState {
+        let place = settings.reference_place_clamped();
+        let lighting = planet.lighting(t_s, place, settings.attenuation.light_mode());
+        let compass = &settings.compass;
+        let star = SkyBody::from_core(&lighting.star, compass, planet.standard_rise_altitude_rad());
+        let moons: Vec<SkyMoon> = lighting
+            .moons
+            .iter()
+            .map(|m| SkyMoon {
+                name: m.name.clone(),
+                body: SkyBody::from_core(&m.light, compass, -m.light.angular_radius_rad),
+                phase_angle_rad: m.phase_angle_rad,
+                illuminated_fraction: m.illuminated_fraction,
+                eclipse_fraction: m.eclipse_fraction,
+            })
+            .collect();
+        let horizontal = star.horizontal_illuminance_lux()
+            + lighting.sky.illuminance_lux
+            + moons
+                .iter()
+                .map(|m| m.body.horizontal_illuminance_lux())
+                .sum::<f64>();
+        let date = planet.date_at(t_s);
+        let ecliptic_longitude = planet.star_instant(t_s).ecliptic_longitude_rad;
+        let [r, g, b] = lighting.sky.color_linear_rgb;
+        SkyState {
+            ready: true,
+            world_time_s: t_s,
+            star,
+            star_eclipse_fraction: lighting.star_eclipse_fraction,
+            toa_insolation_w_m2: lighting.toa_insolation_w_m2,
+            sky_illuminance_lux: lighting.sky.illuminance_lux,
+            sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),
+            moons,
+            phase: DaylightPhase::from_core(lighting.twilight),
+            horizontal_illuminance_lux: horizontal,
+            date: SkyDate {
+                year: date.year,
+                day_of_year: date.day_of_year,
+                month_name: date.month_name,
+                day_of_month: date.day_of_month,
+                hour_of_day: date.hour_of_day,
+                year_fraction: date.year_fraction,
+            },
+            season: SeasonOfYear::at(ecliptic_longitude, place.latitude_rad),
+            lighting: Some(lighting),
+        }
+    }
+}
+
+/// Recomputes [`SkyState`] for this frame's instant.
+pub fn compute_sky_state(
+    world: Res<ActiveWorld>,
+    clock: Res<WorldClock>,
+    settings: Res<InsolaSettings>,
+    mut sky: ResMut<SkyState>,
+) {
+    let Some(planet) = world.planet() else {
+        return;
+    };
+    *sky = SkyState::compute(planet, clock.elapsed_s(), &settings);
+}
