@@ -1,0 +1,401 @@
+//! Scaffolding shared by the examples: the shipped worlds, command-line options for the
+//! rendering examples, a windowed or windowless app, an orbiting camera, Bevy's atmosphere
+//! made from a world's air, and the on-screen status line.
+//!
+//! Each example uses part of it; the parts are small and independent.
+
+#![allow(dead_code, reason = "each example uses part of the shared scaffolding")]
+
+pub mod capture;
+#[cfg(feature = "tuning-panel")]
+pub mod panel;
+
+use std::path::PathBuf;
+
+use bevy::camera::Exposure;
+use bevy::input::mouse::{AccumulatedMouseMotion, AccumulatedMouseScroll};
+use bevy::light::Atmosphere;
+use bevy::light::atmosphere::ScatteringMedium;
+use bevy::prelude::*;
+use bevy_insola::prelude::*;
+use bevy_insola::{ActiveWorld, WorldFile};
+use clap::Parser;
+use insola::Planet;
+
+/// The worlds shipped in `assets/worlds/`, by short name.
+pub const WORLDS: [&str; 3] = ["verdance", "tessaly-reach", "oromar"];
+
+/// Asset path of a shipped world (`"verdance"` → `"worlds/verdance.world.ron"`).
+pub fn world_asset_path(name: &str) -> String {
+    format!("worlds/{name}.world.ron")
+}
+
+/// File path of a shipped world, from the package root.
+pub fn world_file_path(name: &str) -> PathBuf {
+    PathBuf::from(env!("CARGO_MANIFEST_DIR"))
+        .join("assets")
+        .join(world_asset_path(name))
+}
+
+/// Reads a shipped world file (or any `*.world.ron` path) into a checked spec.
+pub fn read_world(name_or_path: &str) -> Result<insola::WorldSpec, String> {
+    let path = if name_or_path.ends_with(".ron") {
+        PathBuf::from(name_or_path)
+    } else {
+        world_file_path(name_or_path)
+    };
+    let text = std::fs::read_to_string(&path)
+        .map_err(|e| format!("cannot read {}: {e}", path.display()))?;
+    let spec =
+        insola::WorldSpec::from_ron_str(&text).map_err(|e| format!("{}: {e}", path.display()))?;
+    Planet::new(&spec).map_err(|e| format!("{}: {e}", path.display()))?;
+    Ok(spec)
+}
+
+/// Options of the rendering examples.
+#[derive(Parser, Debug, Clone)]
+#[command(about = "A small place on an invented world, lit by Insola")]
+pub struct SceneOptions {
+    /// World to start on: verdance, tessaly-reach or oromar.
+    #[arg(long, default_value = "verdance", value_parser = clap::builder::PossibleValuesParser::new(WORLDS))]
+    pub world: String,
+    /// Latitude of the place, degrees north (negative: south).
+    #[arg(long, default_value_t = 40.0, allow_hyphen_values = true, value_parser = latitude)]
+    pub lat: f64,
+    /// Local time to show, in local days: the whole part is the day number, the fraction the
+    /// local mean solar time (100.5 is noon of day 100). Repeat for several pictures.
+    #[arg(long = "at", value_name = "DAYS")]
+    pub at: Vec<f64>,
+    /// Render without a window and write PNG files into this folder (or to this `.png` file).
+    #[arg(long, value_name = "PATH")]
+    pub out: Option<PathBuf>,
+    /// Frames to render before the picture is taken (shader pipelines compile over the first
+    /// frames); after them, frames are rendered until the picture stops changing.
+    #[arg(long, default_value_t = 100)]
+    pub frames: u32,
+    /// Picture width in pixels (headless).
+    #[arg(long, default_value_t = 320)]
+    pub width: u32,
+    /// Picture height in pixels (headless).
+    #[arg(long, default_value_t = 180)]
+    pub height: u32,
+    /// Direction the camera faces: degrees clockwise from north, or `star` to face the star.
+    #[arg(long, default_value = "0")]
+    pub look: String,
+    /// Camera pitch, degrees below the horizontal (negative looks up).
+    #[arg(long, default_value_t = 12.0, allow_hyphen_values = true)]
+    pub pitch: f64,
+    /// Camera distance from the sundial, metres.
+    #[arg(long, default_value_t = 26.0)]
+    pub distance: f64,
+    /// World seconds per real second when the clock runs (windowed).
+    #[arg(long, default_value_t = 600.0)]
+    pub rate: f64,
+}
+
+fn latitude(s: &str) -> Result<f64, String> {
+    let v: f64 = s.parse().map_err(|e| format!("`{s}`: {e}"))?;
+    if v.is_finite() && (-90.0..=90.0).contains(&v) {
+        Ok(v)
+    } else {
+        Err(format!("latitude {v} is out of range: allowed -90 to 90"))
+    }
+}
+
+impl SceneOptions {
+    /// Parses the command line, exiting with a message on bad options.
+    pub fn from_args() -> SceneOptions {
+        SceneOptions::parse()
+    }
+
+    /// The direction the camera faces, or `None` for "face the star".
+    pub fn look_azimuth_deg(&self) -> Result<Option<f64>, String> {
+        if self.look.eq_ignore_ascii_case("star") {
+            return Ok(None);
+        }
+        self.look
+            .parse::<f64>()
+            .ok()
+            .filter(|v| v.is_finite())
+            .map(Some)
+            .ok_or_else(|| format!("--look `{}`: a number of degrees or `star`", self.look))
+    }
+
+    /// World time of local day count `days` at this place's longitude (0).
+    pub fn world_time_s(planet: &Planet, days: f64) -> f64 {
+        planet.local_day_start_s(days, 0.0)
+    }
+}
+
+/// A camera circling a point: drag with the left mouse button or use the arrow keys to turn,
+/// scroll or PageUp/PageDown to move closer or farther.
+#[derive(Component, Debug, Clone, Copy)]
+pub struct OrbitCamera {
+    /// The point looked at.
+    pub focus: Vec3,
+    /// Distance from the focus, metres.
+    pub distance: f32,
+    /// Direction the camera faces, radians clockwise from north.
+    pub look_azimuth: f32,
+    /// Angle below the horizontal, radians.
+    pub pitch: f32,
+}
+
+impl OrbitCamera {
+    /// The camera transform for these settings (scene axes: +Y up, −Z north, +X east).
+    pub fn transform(&self) -> Transform {
+        let (s, c) = self.look_azimuth.sin_cos();
+        let forward_h = Vec3::new(s, 0.0, -c);
+        let forward = (forward_h * self.pitch.cos() - Vec3::Y * self.pitch.sin()).normalize();
+        let eye = self.focus - forward * self.distance;
+        Transform::from_translation(eye).looking_to(forward, Vec3::Y)
+    }
+}
+
+/// Turns and zooms [`OrbitCamera`]s from the mouse and keyboard.
+pub fn orbit_camera_controls(
+    keys: Res<ButtonInput<KeyCode>>,
+    buttons: Res<ButtonInput<MouseButton>>,
+    motion: Res<AccumulatedMouseMotion>,
+    scroll: Res<AccumulatedMouseScroll>,
+    time: Res<Time<Real>>,
+    mut cameras: Query<(&mut OrbitCamera, &mut Transform)>,
+) {
+    let dt = time.delta_secs();
+    for (mut orbit, mut transform) in &mut cameras {
+        let mut turn = Vec2::ZERO;
+        if buttons.pressed(MouseButton::Left) {
+            turn += motion.delta * 0.005;
+        }
+        let key_rate = 1.2 * dt;
+        if keys.pressed(KeyCode::ArrowLeft) {
+            turn.x -= key_rate;
+        }
+        if keys.pressed(KeyCode::ArrowRight) {
+            turn.x += key_rate;
+        }
+        if keys.pressed(KeyCode::ArrowUp) {
+            turn.y -= key_rate;
+        }
+        if keys.pressed(KeyCode::ArrowDown) {
+            turn.y += key_rate;
+        }
+        let mut zoom = -scroll.delta.y * 0.1;
+        if keys.pressed(KeyCode::PageUp) {
+            zoom -= dt;
+        }
+        if keys.pressed(KeyCode::PageDown) {
+            zoom += dt;
+        }
+        orbit.look_azimuth = (orbit.look_azimuth + turn.x).rem_euclid(std::f32::consts::TAU);
+        orbit.pitch = (orbit.pitch + turn.y).clamp(-0.6, 1.5);
+        orbit.distance = (orbit.distance * (1.0 + zoom)).clamp(3.0, 200.0);
+        *transform = orbit.transform();
+    }
+}
+
+/// Bevy's scattering medium for a world's air: Bevy's Earth-like medium with the Rayleigh
+/// terms scaled by the surface pressure and the world's Rayleigh factor, and the haze by its
+/// turbidity. `None` for an airless world.
+pub fn scattering_medium(planet: &Planet) -> Option<ScatteringMedium> {
+    let air = &planet.atmosphere;
+    if air.is_airless() {
+        return None;
+    }
+    let rayleigh = (air.surface_pressure_kpa / insola::light::REFERENCE_PRESSURE_KPA
+        * air.rayleigh_scale) as f32;
+    // Bevy's Earth haze stands for a clear sky (turbidity about 0.05).
+    let haze = (air.aerosol_angstrom_beta / 0.05) as f32;
+    let mut medium = ScatteringMedium::earth(256, 256);
+    if let Some(term) = medium.terms.get_mut(0) {
+        term.scattering *= rayleigh;
+    }
+    if let Some(term) = medium.terms.get_mut(1) {
+        term.scattering *= haze;
+        term.absorption *= haze;
+    }
+    if let Some(term) = medium.terms.get_mut(2) {
+        term.absorption *= rayleigh;
+    }
+    Some(medium.with_label("insola_world_air"))
+}
+
+/// Marks the entity holding Bevy's [`Atmosphere`].
+#[derive(Component)]
+pub struct WorldAir;
+
+/// Keeps one [`Atmosphere`] entity matching the active world's air (rebuilt when the world
+/// changes; removed on an airless world).
+pub fn follow_world_air(
+    mut commands: Commands,
+    mut changed: MessageReader<bevy_insola::WorldChanged>,
+    world: Res<ActiveWorld>,
+    air: Query<Entity, With<WorldAir>>,
+    mut media: ResMut<Assets<ScatteringMedium>>,
+) {
+    if changed.read().count() == 0 {
+        return;
+    }
+    let Some(planet) = world.planet() else {
+        return;
+    };
+    for entity in &air {
+        commands.entity(entity).despawn();
+    }
+    if let Some(medium) = scattering_medium(planet) {
+        let radius_m = (planet.body.radius_km * 1000.0) as f32;
+        commands.spawn((
+            Atmosphere {
+                inner_radius: radius_m,
+                outer_radius: radius_m + 100_000.0,
+                ground_albedo: Vec3::splat(0.3),
+                medium: media.add(medium),
+            },
+            WorldAir,
+        ));
+    }
+}
+
+/// Gives star lights a visible disc the size of the star as seen from the world.
+pub fn size_star_disc(
+    sky: Res<SkyState>,
+    mut discs: Query<&mut bevy::light::SunDisk, With<StarLight>>,
+) {
+    if !sky.ready {
+        return;
+    }
+    let size = (2.0 * sky.star.angular_radius_rad) as f32;
+    for mut disc in &mut discs {
+        if disc.angular_size != size {
+            disc.angular_size = size;
+        }
+    }
+}
+
+/// Marks the on-screen status text.
+#[derive(Component)]
+pub struct StatusLine;
+
+/// Spawns the status line (top left) and a key help line (bottom left) for `camera`.
+pub fn spawn_status_line(commands: &mut Commands, camera: Entity, help: &str) {
+    let font = TextFont {
+        font_size: FontSize::Px(15.0),
+        ..default()
+    };
+    commands.spawn((
+        Text::new("…"),
+        font.clone(),
+        TextColor(Color::srgb(0.95, 0.95, 0.9)),
+        TextShadow::default(),
+        Node {
+            position_type: PositionType::Absolute,
+            top: Val::Px(8.0),
+            left: Val::Px(10.0),
+            ..default()
+        },
+        UiTargetCamera(camera),
+        StatusLine,
+    ));
+    if !help.is_empty() {
+        commands.spawn((
+            Text::new(help),
+            TextFont {
+                font_size: FontSize::Px(12.0),
+                ..default()
+            },
+            TextColor(Color::srgba(0.95, 0.95, 0.9, 0.8)),
+            TextShadow::default(),
+            Node {
+                position_type: PositionType::Absolute,
+                bottom: Val::Px(8.0),
+                left: Val::Px(10.0),
+                ..default()
+            },
+            UiTargetCamera(camera),
+        ));
+    }
+}
+
+/// The status line's text: world, date and time, star altitude, temperature, clock rate.
+pub fn status_text(
+    world: &ActiveWorld,
+    sky: &SkyState,
+    climate: &SeasonalClimate,
+    settings: &InsolaSettings,
+    clock: &WorldClock,
+) -> String {
+    let Some(planet) = world.planet() else {
+        return match world.last_error() {
+            Some(e) => format!("world not loaded: {e}"),
+            None => "loading the world…".to_string(),
+        };
+    };
+    let name = &planet.spec.name;
+    let d = &sky.date;
+    let date = match &d.month_name {
+        Some(month) => format!("year {} {} {}", d.year, d.day_of_month, month),
+        None => format!("year {} day {}", d.year, d.day_of_year + 1),
+    };
+    let place = settings.reference_place_clamped();
+    let local_h = planet.local_mean_time_fraction(sky.world_time_s, place.longitude_rad)
+        * planet.day_s()
+        / 3600.0;
+    let temperature = climate
+        .local_temperature_c(planet, place, sky.world_time_s)
+        .map_or("… °C".to_string(), |t| format!("{t:.1} °C"));
+    let rate = if clock.is_paused() {
+        "paused".to_string()
+    } else {
+        format!(
+            "1 day = {:.0} s",
+            planet.day_s() / clock.rate().abs().max(1e-9)
+        )
+    };
+    format!(
+        "{name} · {lat:.0}°{ns} · {date} · {hh:02}:{mm:02} · {season:?} · star {alt:+.1}° · {phase:?} · {temperature} · {rate}",
+        lat = settings.reference_latitude_deg.abs(),
+        ns = if settings.reference_latitude_deg >= 0.0 {
+            "N"
+        } else {
+            "S"
+        },
+        hh = local_h.floor() as u32,
+        mm = ((local_h.fract()) * 60.0).floor() as u32,
+        season = sky.season,
+        alt = sky.star.altitude_rad.to_degrees(),
+        phase = sky.phase,
+    )
+}
+
+/// Updates the [`StatusLine`] text.
+pub fn update_status_line(
+    world: Res<ActiveWorld>,
+    sky: Res<SkyState>,
+    climate: Res<SeasonalClimate>,
+    settings: Res<InsolaSettings>,
+    clock: Res<WorldClock>,
+    mut lines: Query<&mut Text, With<StatusLine>>,
+) {
+    let text = status_text(&world, &sky, &climate, &settings, &clock);
+    for mut line in &mut lines {
+        if line.0 != text {
+            line.0.clone_from(&text);
+        }
+    }
+}
+
+/// A camera exposure that follows the light at once (for pictures: no adaptation delay).
+pub fn instant_exposure() -> (ExposureFollowsSky, Exposure) {
+    (
+        ExposureFollowsSky {
+            max_change_ev_per_s: f64::INFINITY,
+            ..default()
+        },
+        Exposure::default(),
+    )
+}
+
+/// `true` once the asset for a world file is loaded (for examples that wait on it).
+pub fn world_loaded(world: &ActiveWorld, files: &Assets<WorldFile>) -> bool {
+    world.planet().is_some() || world.handle().is_some_and(|h| files.get(h).is_some())
+}
