@@ -423,7 +423,10 @@ mod tests {
         let exact_frac = (exact_ns % 1_000_000_000) as f64 * 1e-9;
         let now = clock.now();
         let err_s = (now.whole_seconds() - exact_whole) as f64 + (now.fraction() - exact_frac);
-        assert!(exact_whole > 10_000 * 400 * 86_400 - 10_000, "at least 10 000 years less one frame");
+        assert!(
+            exact_whole > 10_000 * 400 * 86_400 - 10_000,
+            "at least 10 000 years less one frame"
+        );
         assert!(err_s.abs() < 1e-3, "drift {err_s} s after {frames} frames");
     }
 

@@ -89,6 +89,14 @@ fn drive_light(
     transform: &mut Mut<Transform>,
     visibility: &mut Mut<Visibility>,
 ) {
+    // The rotation follows the body even while it is down, so the light is already pointing
+    // the right way when it comes on.
+    if let Some(body) = body {
+        let rotation = light_rotation(body.direction, compass);
+        if transform.rotation != rotation {
+            transform.rotation = rotation;
+        }
+    }
     let on = body.is_some_and(|b| b.above_horizon && b.illuminance_lux > 0.0);
     let Some(body) = body.filter(|_| on) else {
         visibility.set_if_neq(Visibility::Hidden);
@@ -97,10 +105,6 @@ fn drive_light(
         }
         return;
     };
-    let rotation = light_rotation(body.direction, compass);
-    if transform.rotation != rotation {
-        transform.rotation = rotation;
-    }
     let illuminance = bevy_illuminance(body.illuminance_lux, body.color);
     let color = Color::LinearRgba(body.color);
     if light.illuminance != illuminance || light.color != color {
@@ -110,24 +114,20 @@ fn drive_light(
     visibility.set_if_neq(Visibility::Inherited);
 }
 
+/// The parts of a light entity the plugin writes.
+type LightParts = (
+    &'static mut DirectionalLight,
+    &'static mut Transform,
+    &'static mut Visibility,
+);
+
 /// Writes the star's and moons' rotation, illuminance, colour and visibility into their
 /// lights.
 pub fn write_body_lights(
     sky: Res<SkyState>,
     settings: Res<InsolaSettings>,
-    mut stars: Query<
-        (&mut DirectionalLight, &mut Transform, &mut Visibility),
-        (With<StarLight>, Without<MoonLight>),
-    >,
-    mut moons: Query<
-        (
-            &MoonLight,
-            &mut DirectionalLight,
-            &mut Transform,
-            &mut Visibility,
-        ),
-        Without<StarLight>,
-    >,
+    mut stars: Query<LightParts, (With<StarLight>, Without<MoonLight>)>,
+    mut moons: Query<(&MoonLight, LightParts), Without<StarLight>>,
 ) {
     if !sky.ready {
         return;
@@ -142,7 +142,7 @@ pub fn write_body_lights(
             &mut visibility,
         );
     }
-    for (moon, mut light, mut transform, mut visibility) in &mut moons {
+    for (moon, (mut light, mut transform, mut visibility)) in &mut moons {
         let body = sky.moons.get(moon.moon).map(|m| &m.body);
         drive_light(body, compass, &mut light, &mut transform, &mut visibility);
     }

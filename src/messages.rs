@@ -218,7 +218,7 @@ fn collect_into(
     out: &mut Vec<SkyNotice>,
 ) {
     let start = out.len();
-    if !(t1 > t0) {
+    if !runs_forward(t0, t1) {
         return;
     }
     let mut push = |t_s: f64, kind: SkyNoticeKind| out.push(SkyNotice { t_s, kind });
@@ -292,7 +292,7 @@ fn collect_into(
             let next = planet
                 .orbit
                 .time_of_star_longitude(mark.ecliptic_longitude_rad(), t + 0.5 * year_s);
-            if !(next > t) {
+            if !runs_forward(t, next) {
                 break;
             }
             t = next;
@@ -315,7 +315,7 @@ pub fn collect_moon_notices(
     out: &mut Vec<SkyNotice>,
 ) {
     use std::f64::consts::PI;
-    if !(t1_s > t0_s) {
+    if !runs_forward(t0_s, t1_s) {
         return;
     }
     let refraction = planet.horizon_refraction_rad;
@@ -344,7 +344,7 @@ pub fn collect_moon_notices(
             insola::angle::wrap_pi(p.y.atan2(p.x) - planet.star_instant(t).ecliptic_longitude_rad)
         };
         let from_opposition = |t: f64| insola::angle::wrap_pi(from_star(t) - PI);
-        let tests: [(&dyn Fn(f64) -> f64, SkyNoticeKind, SkyNoticeKind, bool); 5] = [
+        let tests: [SignTest; 5] = [
             (
                 &up,
                 SkyNoticeKind::MoonRise { moon },
@@ -401,6 +401,15 @@ pub fn collect_moon_notices(
         }
     }
 }
+
+/// `true` if `t1` is later than `t0` (false for NaN).
+fn runs_forward(t0: f64, t1: f64) -> bool {
+    matches!(t1.partial_cmp(&t0), Some(core::cmp::Ordering::Greater))
+}
+
+/// A signed function whose zero crossings are events: the function, the notice sent when it
+/// turns positive, the one sent when it turns negative, and whether it is a wrapped angle.
+type SignTest<'a> = (&'a dyn Fn(f64) -> f64, SkyNoticeKind, SkyNoticeKind, bool);
 
 fn bisect_sign(mut lo: f64, mut hi: f64, lo_positive: bool, f: &dyn Fn(f64) -> f64) -> f64 {
     for _ in 0..64 {
@@ -473,7 +482,7 @@ pub fn send_sky_notices(
         return;
     }
     let (t0, t1) = (clock.previous().as_secs_f64(), clock.elapsed_s());
-    if !(t1 > t0) {
+    if !runs_forward(t0, t1) {
         return;
     }
     if t1 - t0 > settings.max_notified_span_s {
