@@ -1,6 +1,6 @@
 //! Renders the demo world without a window or GPU (software Vulkan) and looks at the
 //! pictures: noon is much brighter than midnight, noon is not a flat colour, and the shadow of
-//! a tall post falls on the side away from the star.
+//! a tall post falls on the side away from the star, at noon and in the afternoon.
 //!
 //! Needs a Vulkan driver; on a machine without a GPU install Mesa's software one with
 //! `.ci/install-render-deps`, then run `cargo test --test render -- --ignored`.
@@ -23,6 +23,8 @@ const SIZE: u32 = 96;
 const VIEW_M: f32 = 24.0;
 const LATITUDE_DEG: f64 = 40.0;
 const DAY: f64 = 100.0;
+/// Mid-afternoon, as a fraction of the local day (for a shadow off the north-south line).
+const AFTERNOON: f64 = 0.62;
 
 fn demo_world() -> WorldSpec {
     let path = concat!(
@@ -33,7 +35,7 @@ fn demo_world() -> WorldSpec {
     WorldSpec::from_ron_str(&text).expect("the demo world file is valid")
 }
 
-/// A light grey ground, a 1 m × 6 m post at the origin, seen from straight above by an
+/// A light grey ground, a 1.5 m × 12 m post at the origin, seen from straight above by an
 /// orthographic camera with north at the top of the picture and east on the right.
 fn spawn_scene(
     mut commands: Commands,
@@ -51,9 +53,9 @@ fn spawn_scene(
         MeshMaterial3d(grey.clone()),
     ));
     commands.spawn((
-        Mesh3d(meshes.add(Cuboid::new(1.0, 6.0, 1.0))),
+        Mesh3d(meshes.add(Cuboid::new(1.5, 12.0, 1.5))),
         MeshMaterial3d(grey),
-        Transform::from_xyz(0.0, 3.0, 0.0),
+        Transform::from_xyz(0.0, 6.0, 0.0),
     ));
     commands.spawn((
         StarLight,
@@ -109,20 +111,74 @@ fn std_dev(values: &[f64]) -> f64 {
     (values.iter().map(|v| (v - m) * (v - m)).sum::<f64>() / values.len().max(1) as f64).sqrt()
 }
 
+/// Where the shadow falls: the centre of the pixels much darker than the lit ground, seen
+/// from the post, as (east, north) pixels; and how many such pixels there are.
+fn shadow_centre(lum: &[f64]) -> ((f64, f64), usize) {
+    let mut sorted = lum.to_vec();
+    sorted.sort_by(f64::total_cmp);
+    let ground = sorted[sorted.len() / 2];
+    let (mut sx, mut sy, mut n) = (0.0, 0.0, 0usize);
+    let half = f64::from(SIZE) / 2.0;
+    for (i, l) in lum.iter().enumerate() {
+        if *l < 0.7 * ground {
+            let (col, row) = (
+                (i as u32 % SIZE) as f64 + 0.5,
+                (i as u32 / SIZE) as f64 + 0.5,
+            );
+            sx += col - half; // east
+            sy += half - row; // north
+            n += 1;
+        }
+    }
+    ((sx / n.max(1) as f64, sy / n.max(1) as f64), n)
+}
+
+/// Checks that the shadow in `lum` points away from `star` (within about 25°).
+fn assert_shadow_away_from(label: &str, lum: &[f64], star: &insola::StarPosition) {
+    let (shadow, n) = shadow_centre(lum);
+    assert!(
+        n >= 10,
+        "{label}: a shadow should be visible, found {n} dark pixels"
+    );
+    // Away from the star: opposite its azimuth (clockwise from north).
+    let away = (-star.azimuth_rad.sin(), -star.azimuth_rad.cos()); // (east, north)
+    let cos = (shadow.0 * away.0 + shadow.1 * away.1) / shadow.0.hypot(shadow.1).max(1e-9);
+    println!(
+        "{label}: star azimuth {:.1}°, altitude {:.1}°; shadow centre {:.1} px east, {:.1} px \
+         north of the post ({n} px); cosine to the anti-star direction {cos:.3}",
+        star.azimuth_rad.to_degrees(),
+        star.altitude_rad.to_degrees(),
+        shadow.0,
+        shadow.1
+    );
+    assert!(
+        cos > 0.9,
+        "{label}: the shadow (centre {shadow:?} px east/north of the post) should point away \
+         from the star (azimuth {:.1}°); cosine {cos:.3}",
+        star.azimuth_rad.to_degrees()
+    );
+}
+
 #[test]
 #[ignore = "needs a Vulkan driver (software: .ci/install-render-deps); run with `cargo test --test render -- --ignored`"]
-fn noon_is_bright_midnight_is_dark_and_the_shadow_points_away_from_the_star() {
+fn noon_is_bright_midnight_is_dark_and_shadows_point_away_from_the_star() {
     let spec = demo_world();
     let planet = Planet::new(&spec).expect("the demo world builds");
     let noon = planet.local_day_start_s(DAY + 0.5, 0.0);
+    let afternoon = planet.local_day_start_s(DAY + AFTERNOON, 0.0);
     let midnight = planet.local_day_start_s(DAY + 1.0, 0.0);
     let place = Place::from_degrees(LATITUDE_DEG, 0.0).expect("a valid place");
-    let star = planet.star_position(noon, place);
-    assert!(
-        star.altitude_rad.to_degrees() > 20.0,
-        "the test wants a high noon star, got {:.1}°",
-        star.altitude_rad.to_degrees()
+    let (noon_star, afternoon_star) = (
+        planet.star_position(noon, place),
+        planet.star_position(afternoon, place),
     );
+    for star in [&noon_star, &afternoon_star] {
+        assert!(
+            star.altitude_rad.to_degrees() > 30.0,
+            "the test wants a high star, got {:.1}°",
+            star.altitude_rad.to_degrees()
+        );
+    }
 
     let sink = Arc::new(Mutex::new(Vec::new()));
     let mut app = App::new();
@@ -137,38 +193,37 @@ fn noon_is_bright_midnight_is_dark_and_the_shadow_points_away_from_the_star() {
         let mut images = app.world_mut().resource_mut::<Assets<Image>>();
         capture::render_target(&mut images, SIZE, SIZE)
     };
+    let shot = |label: &str, t: f64| Shot {
+        label: label.into(),
+        world_time_s: Some(t),
+        path: None,
+    };
     app.insert_resource(Target(target.clone()))
         .add_systems(Startup, spawn_scene)
         .add_plugins(CapturePlugin {
             shots: vec![
-                Shot {
-                    label: "noon".into(),
-                    world_time_s: Some(noon),
-                    path: None,
-                },
-                Shot {
-                    label: "midnight".into(),
-                    world_time_s: Some(midnight),
-                    path: None,
-                },
+                shot("noon", noon),
+                shot("afternoon", afternoon),
+                shot("midnight", midnight),
             ],
             target,
-            warmup_frames: 20,
+            warmup_frames: 100,
             settle_frames: 6,
-            max_frames: 400,
+            max_frames: 600,
             sink: sink.clone(),
         });
     let exit = app.run();
     assert!(exit.is_success(), "the app ended with {exit:?}");
 
     let shots = sink.lock().expect("capture results").clone();
-    assert_eq!(shots.len(), 2, "both pictures taken");
+    assert_eq!(shots.len(), 3, "all pictures taken");
     let out = std::path::Path::new(env!("CARGO_TARGET_TMPDIR")).join("render-test");
     for shot in &shots {
         capture::save_png(&shot.image, &out.join(format!("{}.png", shot.label)));
     }
     let noon_l = luminances(&shots[0].image);
-    let night_l = luminances(&shots[1].image);
+    let afternoon_l = luminances(&shots[1].image);
+    let night_l = luminances(&shots[2].image);
     assert_eq!(noon_l.len(), (SIZE * SIZE) as usize, "noon picture size");
     let (noon_mean, night_mean) = (mean(&noon_l), mean(&night_l));
     println!(
@@ -189,44 +244,6 @@ fn noon_is_bright_midnight_is_dark_and_the_shadow_points_away_from_the_star() {
         "the noon picture should not be a flat colour (spread {:.1})",
         std_dev(&noon_l)
     );
-
-    // The shadow: pixels much darker than the lit ground, their centre seen from the post.
-    let mut sorted = noon_l.clone();
-    sorted.sort_by(f64::total_cmp);
-    let ground = sorted[sorted.len() / 2];
-    let (mut sx, mut sy, mut n) = (0.0, 0.0, 0usize);
-    let half = f64::from(SIZE) / 2.0;
-    for (i, l) in noon_l.iter().enumerate() {
-        if *l < 0.7 * ground {
-            let (col, row) = (
-                (i as u32 % SIZE) as f64 + 0.5,
-                (i as u32 / SIZE) as f64 + 0.5,
-            );
-            sx += col - half; // east
-            sy += half - row; // north
-            n += 1;
-        }
-    }
-    assert!(n >= 10, "a shadow should be visible: {n} dark pixels");
-    let shadow = (sx / n as f64, sy / n as f64);
-    // Away from the star: opposite its azimuth (clockwise from north).
-    let away = (
-        -star.azimuth_rad.sin(), // east
-        -star.azimuth_rad.cos(), // north
-    );
-    let cos = (shadow.0 * away.0 + shadow.1 * away.1)
-        / (shadow.0.hypot(shadow.1) * away.0.hypot(away.1)).max(1e-9);
-    println!(
-        "star azimuth {:.1}°, altitude {:.1}°; shadow centre {:.1} px east, {:.1} px north ({n} px)",
-        star.azimuth_rad.to_degrees(),
-        star.altitude_rad.to_degrees(),
-        shadow.0,
-        shadow.1
-    );
-    assert!(
-        cos > 0.9,
-        "the shadow (centre {shadow:?} px east/north of the post) should point away from the star \
-         (azimuth {:.1}°); cosine {cos:.3}",
-        star.azimuth_rad.to_degrees()
-    );
+    assert_shadow_away_from("noon", &noon_l, &noon_star);
+    assert_shadow_away_from("afternoon", &afternoon_l, &afternoon_star);
 }

@@ -123,8 +123,13 @@ struct CaptureState {
     frames_in_shot: u32,
     waiting: bool,
     previous: Option<Image>,
+    /// Samples in a row that matched the one before.
+    steady: u32,
     started: bool,
 }
+
+/// Samples in a row that must match before a picture counts as settled.
+const STEADY_SAMPLES: u32 = 3;
 
 #[derive(Resource, Default)]
 struct Inbox(Option<Image>);
@@ -142,6 +147,7 @@ impl Plugin for CapturePlugin {
             frames_in_shot: 0,
             waiting: false,
             previous: None,
+            steady: 0,
             started: false,
         })
         .init_resource::<Inbox>()
@@ -187,10 +193,12 @@ fn drive_capture(
     state.frames_in_shot += 1;
     if let Some(image) = inbox.0.take() {
         state.waiting = false;
-        let settled = state
+        let same = state
             .previous
             .as_ref()
             .is_some_and(|p| mean_abs_difference(p, &image) < 0.25);
+        state.steady = if same { state.steady + 1 } else { 0 };
+        let settled = state.steady >= STEADY_SAMPLES;
         let give_up = state.frames_in_shot >= state.max_frames;
         if settled || give_up {
             let shot = state.shots[state.index].clone();
@@ -214,6 +222,7 @@ fn drive_capture(
             state.index += 1;
             state.frames_in_shot = 0;
             state.previous = None;
+            state.steady = 0;
             if let Some(next) = state.shots.get(state.index)
                 && let Some(t) = next.world_time_s
             {
