@@ -31,7 +31,7 @@ use insola::Planet;
 use support::capture::{self, CapturePlugin, Shot};
 use support::{OrbitCamera, SceneOptions};
 
-const HELP: &str = "=/- faster/slower · Space pause · D +1 day · S +1 season · W next world · L/K latitude · arrows/drag camera";
+const HELP: &str = "=/- faster/slower | Space pause | D +1 day | S +1 season | W next world | L/K latitude | arrows, drag: camera";
 
 fn main() -> AppExit {
     let options = SceneOptions::from_args();
@@ -87,21 +87,22 @@ fn main() -> AppExit {
         .add_plugins(insola.with_world_file(support::world_asset_path(&options.world)));
     }
 
-    app.insert_resource(SceneSetup {
-        options: options.clone(),
-        look_azimuth_deg: look,
-        headless,
-    })
-    .add_systems(Startup, (spawn_scenery, spawn_lights, spawn_camera))
-    .add_systems(
-        Update,
-        (
-            support::follow_world_air,
-            rebuild_sundial,
-            support::size_star_disc,
-            support::update_status_line,
-        ),
-    );
+    app.insert_resource(bevy::light::DirectionalLightShadowMap { size: 4096 })
+        .insert_resource(SceneSetup {
+            options: options.clone(),
+            look_azimuth_deg: look,
+            headless,
+        })
+        .add_systems(Startup, (spawn_scenery, spawn_lights, spawn_camera))
+        .add_systems(
+            Update,
+            (
+                support::follow_world_air,
+                rebuild_sundial,
+                support::size_star_disc,
+                support::update_status_line,
+            ),
+        );
 
     if headless {
         let Some(out) = options.out.clone() else {
@@ -190,19 +191,28 @@ fn spawn_camera(
         pitch: o.pitch.to_radians() as f32,
     };
     let (follow, exposure) = support::instant_exposure();
-    let follow = if setup.headless {
-        follow
-    } else {
-        ExposureFollowsSky::default()
+    let follow = ExposureFollowsSky {
+        // The plugin meters the light above the air in this mode, a little more than reaches
+        // the ground; pivoting lower brightens every scene by about 0.7 EV.
+        reference_ev100: 11.5,
+        max_change_ev_per_s: if setup.headless {
+            f64::INFINITY
+        } else {
+            ExposureFollowsSky::default().max_change_ev_per_s
+        },
+        ..follow
     };
     let mut camera = commands.spawn((
         Camera3d::default(),
+        Projection::Perspective(PerspectiveProjection {
+            fov: (o.fov.clamp(10.0, 150.0) as f32).to_radians(),
+            ..default()
+        }),
         orbit.transform(),
         orbit,
         AtmosphereSettings::default(),
         follow,
         exposure,
-        bevy::core_pipeline::tonemapping::Tonemapping::AgX,
     ));
     if let Some(target) = target {
         camera.insert((capture::image_target(&target.0), Msaa::Off));
@@ -211,8 +221,12 @@ fn spawn_camera(
         camera.insert(FacesStar);
     }
     let camera = camera.id();
-    let help = if setup.headless { "" } else { HELP };
-    support::spawn_status_line(&mut commands, camera, help);
+    let (help, height) = if setup.headless {
+        ("", o.height as f32)
+    } else {
+        (HELP, 720.0)
+    };
+    support::spawn_status_line(&mut commands, camera, help, height);
 }
 
 fn face_the_star(
@@ -248,7 +262,7 @@ fn spawn_lights(mut commands: Commands) {
         SunDisk::EARTH,
         CascadeShadowConfigBuilder {
             num_cascades: 3,
-            first_cascade_far_bound: 18.0,
+            first_cascade_far_bound: 32.0,
             maximum_distance: 140.0,
             ..default()
         }
@@ -322,7 +336,7 @@ fn spawn_scenery(
 
     // Ground and a path to the dial.
     commands.spawn((
-        Mesh3d(meshes.add(Plane3d::default().mesh().size(600.0, 600.0))),
+        Mesh3d(meshes.add(Plane3d::default().mesh().size(20_000.0, 20_000.0))),
         MeshMaterial3d(grass),
     ));
     commands.spawn((
@@ -512,7 +526,7 @@ fn rebuild_sundial(
     let length = (2.2 / axis.z.max(0.15)).min(6.0);
     let foot = Vec3::Y * top;
     commands.spawn((
-        Mesh3d(meshes.add(Cylinder::new(0.06, length))),
+        Mesh3d(meshes.add(Cylinder::new(0.09, length))),
         MeshMaterial3d(bronze.clone()),
         Transform::from_translation(foot + axis_scene * length * 0.5)
             .with_rotation(Quat::from_rotation_arc(Vec3::Y, axis_scene)),

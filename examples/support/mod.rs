@@ -85,6 +85,9 @@ pub struct SceneOptions {
     /// Camera pitch, degrees below the horizontal (negative looks up).
     #[arg(long, default_value_t = 12.0, allow_hyphen_values = true)]
     pub pitch: f64,
+    /// Vertical field of view, degrees.
+    #[arg(long, default_value_t = 45.0)]
+    pub fov: f64,
     /// Camera distance from the sundial, metres.
     #[arg(long, default_value_t = 26.0)]
     pub distance: f64,
@@ -143,12 +146,16 @@ pub struct OrbitCamera {
 
 impl OrbitCamera {
     /// The camera transform for these settings (scene axes: +Y up, −Z north, +X east).
+    ///
+    /// The eye stays at least 1.6 m above the ground: when looking up, it stands behind the
+    /// focus at eye height and tilts its view instead of sinking below the ground.
     pub fn transform(&self) -> Transform {
         let (s, c) = self.look_azimuth.sin_cos();
         let forward_h = Vec3::new(s, 0.0, -c);
-        let forward = (forward_h * self.pitch.cos() - Vec3::Y * self.pitch.sin()).normalize();
-        let eye = self.focus - forward * self.distance;
-        Transform::from_translation(eye).looking_to(forward, Vec3::Y)
+        let along = |pitch: f32| (forward_h * pitch.cos() - Vec3::Y * pitch.sin()).normalize();
+        let mut eye = self.focus - along(self.pitch.max(0.05)) * self.distance;
+        eye.y = eye.y.max(1.6);
+        Transform::from_translation(eye).looking_to(along(self.pitch), Vec3::Y)
     }
 }
 
@@ -274,45 +281,58 @@ pub fn size_star_disc(
 
 /// Marks the on-screen status text.
 #[derive(Component)]
-pub struct StatusLine;
+pub struct StatusLine {
+    /// Show the clock's rate (or "paused") at the end of the line.
+    pub show_rate: bool,
+}
 
-/// Spawns the status line (top left) and a key help line (bottom left) for `camera`.
-pub fn spawn_status_line(commands: &mut Commands, camera: Entity, help: &str) {
-    let font = TextFont {
-        font_size: FontSize::Px(15.0),
-        ..default()
-    };
+/// Spawns the status line (top left) and a key help line (bottom left, if not empty) for
+/// `camera`, with text sized for a view `view_height_px` pixels high.
+pub fn spawn_status_line(commands: &mut Commands, camera: Entity, help: &str, view_height_px: f32) {
+    let size = (view_height_px * 0.036).clamp(9.0, 16.0);
     commands.spawn((
-        Text::new("…"),
-        font.clone(),
+        Text::new("..."),
+        TextFont {
+            font_size: FontSize::Px(size),
+            ..default()
+        },
         TextColor(Color::srgb(0.95, 0.95, 0.9)),
-        TextShadow::default(),
+        thin_shadow(),
         Node {
             position_type: PositionType::Absolute,
-            top: Val::Px(8.0),
-            left: Val::Px(10.0),
+            top: Val::Px(size * 0.5),
+            left: Val::Px(size * 0.7),
             ..default()
         },
         UiTargetCamera(camera),
-        StatusLine,
+        StatusLine {
+            show_rate: !help.is_empty(),
+        },
     ));
     if !help.is_empty() {
         commands.spawn((
             Text::new(help),
             TextFont {
-                font_size: FontSize::Px(12.0),
+                font_size: FontSize::Px(size * 0.8),
                 ..default()
             },
             TextColor(Color::srgba(0.95, 0.95, 0.9, 0.8)),
-            TextShadow::default(),
+            thin_shadow(),
             Node {
                 position_type: PositionType::Absolute,
-                bottom: Val::Px(8.0),
-                left: Val::Px(10.0),
+                bottom: Val::Px(size * 0.5),
+                left: Val::Px(size * 0.7),
                 ..default()
             },
             UiTargetCamera(camera),
         ));
+    }
+}
+
+fn thin_shadow() -> TextShadow {
+    TextShadow {
+        offset: Vec2::splat(1.0),
+        color: Color::srgba(0.0, 0.0, 0.0, 0.7),
     }
 }
 
@@ -323,11 +343,12 @@ pub fn status_text(
     climate: &SeasonalClimate,
     settings: &InsolaSettings,
     clock: &WorldClock,
+    show_rate: bool,
 ) -> String {
     let Some(planet) = world.planet() else {
         return match world.last_error() {
             Some(e) => format!("world not loaded: {e}"),
-            None => "loading the world…".to_string(),
+            None => "loading the world...".to_string(),
         };
     };
     let name = &planet.spec.name;
@@ -337,30 +358,37 @@ pub fn status_text(
         None => format!("year {} day {}", d.year, d.day_of_year + 1),
     };
     let place = settings.reference_place_clamped();
-    let local_h = planet.local_mean_time_fraction(sky.world_time_s, place.longitude_rad)
+    // Local mean time to the nearest minute (a world's day may have more or fewer than 24 h).
+    let day_min = (planet.day_s() / 60.0).round().max(1.0);
+    let local_min = (planet.local_mean_time_fraction(sky.world_time_s, place.longitude_rad)
         * planet.day_s()
-        / 3600.0;
+        / 60.0)
+        .round()
+        .rem_euclid(day_min);
     let temperature = climate
         .local_temperature_c(planet, place, sky.world_time_s)
-        .map_or("… °C".to_string(), |t| format!("{t:.1} °C"));
-    let rate = if clock.is_paused() {
-        "paused".to_string()
+        .map_or("... C".to_string(), |t| format!("{t:.1} C"));
+    let rate = if !show_rate {
+        String::new()
+    } else if clock.is_paused() {
+        " | paused".to_string()
     } else {
         format!(
-            "1 day = {:.0} s",
+            " | 1 day = {:.0} s",
             planet.day_s() / clock.rate().abs().max(1e-9)
         )
     };
+    // Plain ASCII: Bevy's built-in font has no degree sign.
     format!(
-        "{name} · {lat:.0}°{ns} · {date} · {hh:02}:{mm:02} · {season:?} · star {alt:+.1}° · {phase:?} · {temperature} · {rate}",
+        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season:?} | star {alt:+.1} deg, {phase:?} | {temperature}{rate}",
         lat = settings.reference_latitude_deg.abs(),
         ns = if settings.reference_latitude_deg >= 0.0 {
             "N"
         } else {
             "S"
         },
-        hh = local_h.floor() as u32,
-        mm = ((local_h.fract()) * 60.0).floor() as u32,
+        hh = (local_min / 60.0).floor() as u32,
+        mm = local_min.rem_euclid(60.0) as u32,
         season = sky.season,
         alt = sky.star.altitude_rad.to_degrees(),
         phase = sky.phase,
@@ -374,12 +402,12 @@ pub fn update_status_line(
     climate: Res<SeasonalClimate>,
     settings: Res<InsolaSettings>,
     clock: Res<WorldClock>,
-    mut lines: Query<&mut Text, With<StatusLine>>,
+    mut lines: Query<(&mut Text, &StatusLine)>,
 ) {
-    let text = status_text(&world, &sky, &climate, &settings, &clock);
-    for mut line in &mut lines {
+    for (mut line, status) in &mut lines {
+        let text = status_text(&world, &sky, &climate, &settings, &clock, status.show_rate);
         if line.0 != text {
-            line.0.clone_from(&text);
+            line.0 = text;
         }
     }
 }
