@@ -7,18 +7,21 @@
 //! for any latitude and time, [`SeasonalClimate::local_temperature_c`] with the day-night
 //! swing, and [`ClimateSnapshot`], a table of one instant that observers read with a few flops.
 //!
-//! **Interim model.** The core's seasonal energy-balance model is not on the main line yet. Until
-//! it is, [`ClimateModel`] uses a deliberately small stand-in, marked as such
-//! ([`ClimateModel::is_interim`]): each latitude band relaxes toward radiative balance with the
-//! daily-mean insolation, `C dT/dt = (1 − α) Q − (A + B T)`, without heat transport between
-//! bands, plus a cosine day-night swing. Its numbers are plausible, not validated.
+//! The model is the core's seasonal energy-balance model ([`insola::climate`]), equilibrated
+//! with [`Planet::equilibrate_climate`]. Should it fail to build, a deliberately small interim
+//! stand-in takes over (logged; [`ClimateModel::is_interim`]): each latitude band relaxes
+//! toward radiative balance with the daily-mean insolation, `C dT/dt = (1 − α) Q − (A + B T)`,
+//! without heat transport between bands, plus a cosine day-night swing. Its numbers are
+//! plausible, not validated.
 
 use std::sync::Arc;
 
 use bevy::prelude::*;
 use bevy::tasks::{AsyncComputeTaskPool, Task, block_on, futures_lite::future};
+use insola::climate::{ClimateCycle, ClimateError, Season};
 use insola::{Place, Planet};
 
+use crate::season::ThermalSeason;
 use crate::world_asset::ActiveWorld;
 
 /// Latitude rows of a [`ClimateSnapshot`] (every 2°, pole to pole).
@@ -29,23 +32,74 @@ pub const SNAPSHOT_HOUR_ANGLES: usize = 49;
 /// A world's seasonal climate, ready for queries.
 #[derive(Debug, Clone)]
 pub struct ClimateModel {
-    backend: InterimClimate,
+    backend: Backend,
     year_s: f64,
+    day_s: f64,
+}
+
+#[derive(Debug, Clone)]
+enum Backend {
+    /// The core's energy-balance model.
+    Core(Box<ClimateCycle>),
+    /// The stand-in, used only if the core model cannot be built (see the module docs).
+    Interim(InterimClimate),
 }
 
 impl ClimateModel {
-    /// Equilibrates the climate of `planet` (may take tens of milliseconds; the plugin runs it
-    /// in the background).
+    /// Equilibrates the climate of `planet` with the core's energy-balance model (milliseconds
+    /// to tens of milliseconds; the plugin runs it in the background). A climate that does not
+    /// settle uses its last computed year (logged); a model that cannot be built at all falls
+    /// back to the interim stand-in (logged).
     pub fn build(planet: &Planet) -> ClimateModel {
+        let backend = match planet.equilibrate_climate() {
+            Ok(cycle) => Backend::Core(Box::new(cycle)),
+            Err(ClimateError::NotConverged { last, .. }) => {
+                warn!(
+                    "Insola: the climate of `{}` did not settle to a repeating year; using the last year computed",
+                    planet.spec.name
+                );
+                Backend::Core(last)
+            }
+            Err(error) => {
+                error!(
+                    "Insola: climate model failed for `{}` ({error}); using the interim stand-in",
+                    planet.spec.name
+                );
+                Backend::Interim(InterimClimate::build(planet))
+            }
+        };
+        ClimateModel::with_backend(planet, backend)
+    }
+
+    /// The interim stand-in model (no heat transport; see the module docs), for comparison.
+    pub fn build_interim(planet: &Planet) -> ClimateModel {
+        ClimateModel::with_backend(planet, Backend::Interim(InterimClimate::build(planet)))
+    }
+
+    fn with_backend(planet: &Planet, backend: Backend) -> ClimateModel {
+        let day_s = planet.day_s();
         ClimateModel {
-            backend: InterimClimate::build(planet),
+            backend,
             year_s: planet.year_s(),
+            day_s: if day_s.is_finite() && day_s > 0.0 {
+                day_s
+            } else {
+                planet.year_s()
+            },
         }
     }
 
-    /// `true` while this is the interim stand-in rather than the core's climate model.
+    /// `true` if this is the interim stand-in rather than the core's climate model.
     pub fn is_interim(&self) -> bool {
-        true
+        matches!(self.backend, Backend::Interim(_))
+    }
+
+    /// The core's climate cycle (band statistics, ice edges, zones...), unless interim.
+    pub fn cycle(&self) -> Option<&ClimateCycle> {
+        match &self.backend {
+            Backend::Core(c) => Some(c),
+            Backend::Interim(_) => None,
+        }
     }
 
     /// Fraction of the climate year at world time `t_s`, `[0, 1)` (years start at whole
@@ -56,32 +110,63 @@ impl ClimateModel {
 
     /// Zonal-mean surface temperature, °C, at latitude `lat_rad` and `year_fraction`.
     pub fn zonal_temperature_c(&self, lat_rad: f64, year_fraction: f64) -> f64 {
-        self.backend.zonal_c(lat_rad, year_fraction)
+        match &self.backend {
+            Backend::Core(c) => c.temperature_c(lat_rad, year_fraction),
+            Backend::Interim(m) => m.zonal_c(lat_rad, year_fraction),
+        }
     }
 
-    /// Local temperature, °C: zonal mean plus the day-night deviation at the star's local hour
-    /// angle `hour_angle_rad` (0 at local noon).
+    /// Local temperature, °C, at the reference elevation: zonal mean plus the day-night
+    /// deviation at the star's local hour angle `hour_angle_rad` (0 at local noon, growing with
+    /// time). `NaN` for a latitude outside ±π/2 or a non-finite input.
     pub fn temperature_c(&self, lat_rad: f64, year_fraction: f64, hour_angle_rad: f64) -> f64 {
-        self.backend.zonal_c(lat_rad, year_fraction)
-            + self
-                .backend
-                .diurnal_k(lat_rad, year_fraction, hour_angle_rad)
+        match &self.backend {
+            Backend::Core(c) => c
+                .instant(year_fraction, self.day_s)
+                .and_then(|i| i.temperature_c(lat_rad, hour_angle_rad, 0.0))
+                .unwrap_or(f64::NAN),
+            Backend::Interim(m) => {
+                m.zonal_c(lat_rad, year_fraction)
+                    + m.diurnal_k(lat_rad, year_fraction, hour_angle_rad)
+            }
+        }
+    }
+
+    /// The season, following the local temperature cycle, at `lat_rad` and `year_fraction`
+    /// (`None` from the interim model).
+    pub fn season(&self, lat_rad: f64, year_fraction: f64) -> Option<Season> {
+        self.cycle().map(|c| c.season(lat_rad, year_fraction))
     }
 
     /// The table of one instant for fast per-place lookups.
     pub fn snapshot(&self, year_fraction: f64) -> ClimateSnapshot {
+        use std::f64::consts::{FRAC_PI_2, PI, TAU};
         let mut table = Vec::with_capacity(SNAPSHOT_LATITUDES * SNAPSHOT_HOUR_ANGLES);
+        let instant = self
+            .cycle()
+            .and_then(|c| c.instant(year_fraction, self.day_s).ok());
         for i in 0..SNAPSHOT_LATITUDES {
-            let lat = -std::f64::consts::FRAC_PI_2
-                + std::f64::consts::PI * i as f64 / (SNAPSHOT_LATITUDES - 1) as f64;
-            let zonal = self.backend.zonal_c(lat, year_fraction);
+            let lat = -FRAC_PI_2 + PI * i as f64 / (SNAPSHOT_LATITUDES - 1) as f64;
             for j in 0..SNAPSHOT_HOUR_ANGLES {
-                let h = -std::f64::consts::PI
-                    + std::f64::consts::TAU * j as f64 / (SNAPSHOT_HOUR_ANGLES - 1) as f64;
-                table.push((zonal + self.backend.diurnal_k(lat, year_fraction, h)) as f32);
+                let h = -PI + TAU * j as f64 / (SNAPSHOT_HOUR_ANGLES - 1) as f64;
+                let t = match (&self.backend, &instant) {
+                    (Backend::Core(_), Some(i)) => i.temperature_c(lat, h, 0.0).unwrap_or(f64::NAN),
+                    (Backend::Core(_), None) => f64::NAN,
+                    (Backend::Interim(m), _) => {
+                        m.zonal_c(lat, year_fraction) + m.diurnal_k(lat, year_fraction, h)
+                    }
+                };
+                table.push(t as f32);
             }
         }
-        ClimateSnapshot { table }
+        let seasons = (0..SNAPSHOT_LATITUDES)
+            .map(|i| {
+                let lat = -FRAC_PI_2 + PI * i as f64 / (SNAPSHOT_LATITUDES - 1) as f64;
+                self.season(lat, year_fraction)
+                    .map_or(ThermalSeason::Unknown, ThermalSeason::from)
+            })
+            .collect();
+        ClimateSnapshot { table, seasons }
     }
 }
 
@@ -89,9 +174,21 @@ impl ClimateModel {
 #[derive(Debug, Clone, Default, PartialEq)]
 pub struct ClimateSnapshot {
     table: Vec<f32>,
+    seasons: Vec<ThermalSeason>,
 }
 
 impl ClimateSnapshot {
+    /// The season by the temperature cycle at latitude `lat_rad` (nearest table row).
+    #[inline]
+    pub fn season(&self, lat_rad: f64) -> ThermalSeason {
+        let u = ((lat_rad + std::f64::consts::FRAC_PI_2) / std::f64::consts::PI).clamp(0.0, 1.0)
+            * (SNAPSHOT_LATITUDES - 1) as f64;
+        self.seasons
+            .get(u.round() as usize)
+            .copied()
+            .unwrap_or_default()
+    }
+
     /// Temperature, °C, at latitude `lat_rad` and the star's local hour angle `hour_angle_rad`
     /// (bilinear in the table; `NaN` for an empty snapshot).
     #[inline]
@@ -170,6 +267,13 @@ impl SeasonalClimate {
         Some(m.zonal_temperature_c(lat_rad, m.year_fraction(t_s)))
     }
 
+    /// The season by the temperature cycle at `lat_rad` and world time `t_s`.
+    pub fn season(&self, lat_rad: f64, t_s: f64) -> Option<ThermalSeason> {
+        let m = self.model()?;
+        m.season(lat_rad, m.year_fraction(t_s))
+            .map(ThermalSeason::from)
+    }
+
     /// Local temperature, °C, at `place` and world time `t_s`, with the day-night swing.
     pub fn local_temperature_c(&self, planet: &Planet, place: Place, t_s: f64) -> Option<f64> {
         let m = self.model()?;
@@ -212,7 +316,7 @@ pub fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClima
 }
 
 // ---------------------------------------------------------------------------------------------
-// Interim stand-in (see the module docs). Replaced by the core's climate model when it lands.
+// Interim stand-in (see the module docs): used only when the core's model cannot be built.
 
 /// Bands of the interim model (every 5°).
 const INTERIM_BANDS: usize = 36;
@@ -346,7 +450,16 @@ mod tests {
 
     #[test]
     fn warm_equator_cold_poles_and_seasons_in_phase() {
-        let m = ClimateModel::build(&planet());
+        for m in [
+            ClimateModel::build(&planet()),
+            ClimateModel::build_interim(&planet()),
+        ] {
+            check_model(&m);
+        }
+        assert!(!ClimateModel::build(&planet()).is_interim());
+    }
+
+    fn check_model(m: &ClimateModel) {
         let eq = m.zonal_temperature_c(0.0, 0.3);
         let pole = m.zonal_temperature_c(1.5, 0.3);
         assert!(eq > pole + 20.0, "{eq} {pole}");

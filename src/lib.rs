@@ -87,8 +87,8 @@ pub mod prelude {
     pub use crate::{
         ActiveWorld, DaylightPhase, ExposureFollowsSky, InsolaPlugin, InsolaSettings,
         InsolaSystems, LightAttenuation, LocalConditions, MoonLight, SceneCompass, SeasonOfYear,
-        SeasonalClimate, SkyNotice, SkyNoticeKind, SkyState, StarLight, SurfacePlace, WorldClock,
-        WorldInstant,
+        SeasonalClimate, SkyNotice, SkyNoticeKind, SkyState, StarLight, SurfacePlace,
+        ThermalSeason, WorldClock, WorldInstant,
     };
 }
 

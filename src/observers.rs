@@ -14,7 +14,7 @@ use insola::{Place, Planet};
 
 use crate::climate::{ClimateSnapshot, SeasonalClimate};
 use crate::clock::WorldClock;
-use crate::season::SeasonOfYear;
+use crate::season::{SeasonOfYear, ThermalSeason};
 use crate::settings::{InsolaSettings, ObserverInterval};
 use crate::world_asset::ActiveWorld;
 
@@ -108,6 +108,8 @@ pub struct LocalConditions {
     pub temperature_c: f32,
     /// The astronomical season in the place's hemisphere.
     pub season: SeasonOfYear,
+    /// The season by the local temperature cycle (from the climate model).
+    pub thermal_season: ThermalSeason,
     /// World time of the update, seconds since time zero.
     pub updated_at_s: f64,
 }
@@ -167,6 +169,7 @@ impl StarFrame {
             temperature_c: self
                 .climate
                 .temperature_c(place.latitude_rad, self.sense * h),
+            thermal_season: self.climate.season(place.latitude_rad),
             season: if place.latitude_rad < 0.0 {
                 self.season_south
             } else {

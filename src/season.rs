@@ -53,6 +53,40 @@ impl SeasonOfYear {
     }
 }
 
+/// A season by the local temperature cycle (from the climate model): the warmest quarter of the
+/// cycle is summer, the coldest winter; a band where the temperature hardly varies is steady.
+/// Tropical bands may have two summers a year.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Default, Reflect, Serialize, Deserialize)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub enum ThermalSeason {
+    /// Warming quarter of the cycle.
+    Spring,
+    /// Warmest quarter.
+    Summer,
+    /// Cooling quarter.
+    Autumn,
+    /// Coldest quarter.
+    Winter,
+    /// No seasonal cycle to speak of.
+    Steady,
+    /// No climate yet (still being computed, or the interim model). Default.
+    #[default]
+    Unknown,
+}
+
+impl From<insola::climate::Season> for ThermalSeason {
+    fn from(season: insola::climate::Season) -> ThermalSeason {
+        use insola::climate::Season as S;
+        match season {
+            S::Spring => ThermalSeason::Spring,
+            S::Summer => ThermalSeason::Summer,
+            S::Autumn => ThermalSeason::Autumn,
+            S::Winter => ThermalSeason::Winter,
+            S::Steady => ThermalSeason::Steady,
+        }
+    }
+}
+
 /// The four turning points of the year (named for the north, as in the core).
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Reflect, Serialize, Deserialize)]
 #[reflect(Debug, PartialEq, Clone)]

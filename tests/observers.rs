@@ -48,6 +48,13 @@ fn observers_get_the_cores_star_and_a_temperature() {
         assert_approx_eq!(c.star_altitude_rad, core.altitude_rad, 1e-5);
         assert_approx_eq!(c.toa_insolation_w_m2, core.toa_insolation_w_m2, 0.01);
         assert!(c.temperature_c.is_finite(), "temperature at {lat}");
+        assert_ne!(c.thermal_season, bevy_insola::ThermalSeason::Unknown);
+        let direct = app
+            .world()
+            .resource::<SeasonalClimate>()
+            .local_temperature_c(&planet, insola::Place::from_degrees(lat, lon).unwrap(), t);
+        // The per-place table agrees with the direct query to its interpolation error.
+        assert_approx_eq!(c.temperature_c, direct.unwrap(), 1.0);
         let expected_season = SeasonOfYear::at(
             planet.star_instant(t).ecliptic_longitude_rad,
             lat.to_radians(),
