@@ -305,8 +305,9 @@ fn collect_into(
 /// The moons' notices in `(t0_s, t1_s]`: rise and set at `place`, full and new moon, the
 /// planet's shadow on each moon, and each moon's cover of the star at `place`.
 ///
-/// Sampled at most every 1/96 of the shortest of the day, the moon's period and the year, then
-/// refined by bisection to a millisecond; an eclipse shorter than one sample can be missed.
+/// Rise and set come from the core's crossing finder; the others are sampled at most every
+/// 1/96 of the shortest of the day, the moon's period and the year, then refined by bisection
+/// to a millisecond; an eclipse shorter than one sample can be missed.
 pub fn collect_moon_notices(
     planet: &Planet,
     place: Place,
@@ -318,15 +319,25 @@ pub fn collect_moon_notices(
     if !runs_forward(t0_s, t1_s) {
         return;
     }
-    let refraction = planet.horizon_refraction_rad;
+    let mut crossings = Vec::new();
     for (moon, orbit) in planet.moon_orbits().iter().enumerate() {
+        // Rise and set: the core's crossing finder at the standard moonrise altitude.
+        crossings.clear();
+        let rise_altitude = planet.moon_rise_altitude_rad(moon);
+        planet.moon_altitude_crossings_into(moon, place, t0_s, t1_s, rise_altitude, &mut crossings);
+        out.extend(crossings.iter().map(|c| SkyNotice {
+            t_s: c.t_s,
+            kind: if c.rising {
+                SkyNoticeKind::MoonRise { moon }
+            } else {
+                SkyNoticeKind::MoonSet { moon }
+            },
+        }));
         let span = planet.day_s().min(planet.year_s()).min(orbit.period_s);
         let n = ((t1_s - t0_s) / (span / 96.0)).ceil().clamp(1.0, 1.0e7) as usize;
         let step = (t1_s - t0_s) / n as f64;
         // Signed quantities whose zero crossings are the events.
         let view = |t: f64| planet.moon_view(&planet.star_instant(t), moon, place);
-        let up =
-            |t: f64| view(t).map_or(-1.0, |v| v.altitude_rad + v.angular_radius_rad + refraction);
         let shadow =
             |t: f64| view(t).map_or(-1.0, |v| if v.shadow_fraction > 0.0 { 1.0 } else { -1.0 });
         let cover = |t: f64| {
@@ -344,13 +355,7 @@ pub fn collect_moon_notices(
             insola::angle::wrap_pi(p.y.atan2(p.x) - planet.star_instant(t).ecliptic_longitude_rad)
         };
         let from_opposition = |t: f64| insola::angle::wrap_pi(from_star(t) - PI);
-        let tests: [SignTest; 5] = [
-            (
-                &up,
-                SkyNoticeKind::MoonRise { moon },
-                SkyNoticeKind::MoonSet { moon },
-                false,
-            ),
+        let tests: [SignTest; 4] = [
             (
                 &shadow,
                 SkyNoticeKind::MoonEclipseBegins { moon },
