@@ -66,9 +66,9 @@ fn tend_the_farm(
     world: Res<ActiveWorld>,
     mut farms: Query<(&Name, &SurfacePlace, &LocalConditions, &mut Farm)>,
 ) {
-    let (Some(_planet), true) = (world.planet(), climate.is_ready()) else {
+    if world.planet().is_none() || !climate.is_ready() {
         return;
-    };
+    }
     let new_days: Vec<(i64, f64)> = notices
         .read()
         .filter_map(|n| match n.kind {

@@ -300,7 +300,7 @@ fn spawn_lights(mut commands: Commands) {
 struct Scatter(u32);
 
 impl Scatter {
-    fn next(&mut self) -> f32 {
+    fn next_unit(&mut self) -> f32 {
         self.0 = self.0.wrapping_mul(1_664_525).wrapping_add(1_013_904_223);
         (self.0 >> 8) as f32 / (1u32 << 24) as f32
     }
@@ -396,14 +396,14 @@ fn spawn_scenery(
     let mut scatter = Scatter(7);
     let mut planted = 0;
     while planted < 26 {
-        let a = scatter.next() * TAU;
-        let r = 22.0 + scatter.next() * 40.0;
+        let a = scatter.next_unit() * TAU;
+        let r = 22.0 + scatter.next_unit() * 40.0;
         let at = Vec3::new(r * a.cos(), 0.0, r * a.sin());
         if (at - Vec3::new(0.0, 0.0, 30.0)).length() < 10.0 {
             continue; // keep the view from the south open
         }
         planted += 1;
-        let height = 3.0 + scatter.next() * 3.0;
+        let height = 3.0 + scatter.next_unit() * 3.0;
         commands.spawn((
             Mesh3d(trunk.clone()),
             MeshMaterial3d(bark.clone()),
@@ -413,8 +413,8 @@ fn spawn_scenery(
                 1.0,
             )),
         ));
-        if scatter.next() < 0.5 {
-            let s = 1.4 + scatter.next() * 1.0;
+        if scatter.next_unit() < 0.5 {
+            let s = 1.4 + scatter.next_unit() * 1.0;
             commands.spawn((
                 Mesh3d(round_crown.clone()),
                 MeshMaterial3d(leaves.clone()),
@@ -422,7 +422,7 @@ fn spawn_scenery(
                     .with_scale(Vec3::new(s, s * 1.1, s)),
             ));
         } else {
-            let w = 1.3 + scatter.next() * 0.6;
+            let w = 1.3 + scatter.next_unit() * 0.6;
             commands.spawn((
                 Mesh3d(pointed_crown.clone()),
                 MeshMaterial3d(dark_leaves.clone()),

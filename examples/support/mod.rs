@@ -63,7 +63,8 @@ pub struct SceneOptions {
     #[arg(long, default_value_t = 40.0, allow_hyphen_values = true, value_parser = latitude)]
     pub lat: f64,
     /// Local time to show, in local days: the whole part is the day number, the fraction the
-    /// local mean solar time (100.5 is noon of day 100). Repeat for several pictures.
+    /// local mean solar time (100.5 is noon of local day 100, which the status line's calendar,
+    /// counting from 1, shows as day 101). Repeat for several pictures.
     #[arg(long = "at", value_name = "DAYS")]
     pub at: Vec<f64>,
     /// Render without a window and write PNG files into this folder (or to this `.png` file).

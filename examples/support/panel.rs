@@ -50,10 +50,9 @@ fn world_tuner_window(
     mut state: ResMut<TunerState>,
 ) -> Result {
     let ctx = contexts.ctx_mut()?;
-    let Some(planet) = world.planet() else {
+    let Some(planet) = world.planet_arc() else {
         return Ok(());
     };
-    let planet = planet.clone();
     let mut spec = planet.spec.clone();
     let mut changed = false;
     let place = settings.reference_place_clamped();
@@ -400,7 +399,7 @@ fn plots(
             // Tiles are 1/48 of the year wide and 5° of latitude high, the first row at 90° S.
             let tile_w = 1.0 / MAP_COLUMNS as f32;
             let tile_h = 180.0 / (MAP_ROWS - 1) as f32;
-            plot.add(
+            plot.heatmap(
                 Heatmap::new(state.heat_map.clone(), MAP_COLUMNS)
                     .range(0.0, state.heat_max)
                     .tile_size(tile_w, tile_h)
