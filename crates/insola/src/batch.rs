@@ -98,24 +98,7 @@ impl Planet {
         out: &mut [DVec3],
     ) {
         let (sd, cd) = (instant.sin_declination, instant.cos_declination);
-        let n = batch.len().min(out.len());
-        out[..n]
-            .par_chunks_mut(CHUNK)
-            .enumerate()
-            .for_each(|(c, chunk)| {
-                let base = c * CHUNK;
-                for (j, o) in chunk.iter_mut().enumerate() {
-                    let k = base + j;
-                    *o = direction(
-                        instant,
-                        batch.sin_lat[k],
-                        batch.cos_lat[k],
-                        batch.lon_rad[k],
-                        sd,
-                        cd,
-                    );
-                }
-            });
+        fill_par(batch, out, |s, c, l| direction(instant, s, c, l, sd, cd));
     }
 
     /// Sine of the star's altitude (the "up" component of its direction) for every place, in
@@ -127,25 +110,25 @@ impl Planet {
         out: &mut [f64],
     ) {
         let (sd, cd) = (instant.sin_declination, instant.cos_declination);
-        let n = batch.len().min(out.len());
-        out[..n]
-            .par_chunks_mut(CHUNK)
-            .enumerate()
-            .for_each(|(c, chunk)| {
-                let base = c * CHUNK;
-                for (j, o) in chunk.iter_mut().enumerate() {
-                    let k = base + j;
-                    *o = up_component(
-                        instant,
-                        batch.sin_lat[k],
-                        batch.cos_lat[k],
-                        batch.lon_rad[k],
-                        sd,
-                        cd,
-                    );
-                }
-            });
+        fill_par(batch, out, |s, c, l| up_component(instant, s, c, l, sd, cd));
     }
+}
+
+/// Writes `f(sin lat, cos lat, lon)` for every place into `out`, in chunks over rayon's pool.
+/// Each element depends only on its own place, so the result does not depend on the number of
+/// threads.
+fn fill_par<T: Send>(batch: &PlaceBatch, out: &mut [T], f: impl Fn(f64, f64, f64) -> T + Sync) {
+    let n = batch.len().min(out.len());
+    out[..n]
+        .par_chunks_mut(CHUNK)
+        .enumerate()
+        .for_each(|(c, chunk)| {
+            let base = c * CHUNK;
+            for (j, o) in chunk.iter_mut().enumerate() {
+                let k = base + j;
+                *o = f(batch.sin_lat[k], batch.cos_lat[k], batch.lon_rad[k]);
+            }
+        });
 }
 
 #[inline]

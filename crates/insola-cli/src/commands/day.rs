@@ -1,20 +1,15 @@
 //! `insola day WORLD --lat DEG [--lon DEG] (--day N | --utc YYYY-MM-DD)`: events of a local day.
 
 use insola::events::{Crossings, DayEvents, Polar};
-use insola::{Place, Planet};
+use insola::Planet;
 use serde::Serialize;
 
 /// Arguments of `insola day`.
 #[derive(Debug, clap::Args)]
 pub struct Args {
-    /// A `*.world.ron` file or the name of a built-in world.
-    world: String,
-    /// Latitude in degrees, positive north.
-    #[arg(long, allow_hyphen_values = true)]
-    lat: f64,
-    /// Longitude in degrees, positive east.
-    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
-    lon: f64,
+    /// The world and the place on it.
+    #[command(flatten)]
+    at: super::output::WorldPlace,
     /// Local day number (day 0 contains time zero).
     #[arg(
         long,
@@ -117,10 +112,9 @@ pub fn resolve_day(
 
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
-    let p = crate::worlds::load(&args.world)?;
-    let lat = super::output::check_lat(args.lat)?;
-    let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
-    let day = resolve_day(&p, args.day, args.utc.as_deref(), args.lon)?;
+    let (p, place) = args.at.load()?;
+    let lat = args.at.lat;
+    let day = resolve_day(&p, args.day, args.utc.as_deref(), args.at.lon)?;
     let r = report(day, &p.day_events(day, place));
     if args.json {
         return super::output::print_json(&r);
@@ -130,7 +124,7 @@ pub fn run(args: Args) -> Result<(), String> {
         "{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)",
         p.spec.name,
         lat,
-        args.lon,
+        args.at.lon,
         day,
         r.local_day_h
     );

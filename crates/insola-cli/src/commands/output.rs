@@ -28,3 +28,26 @@ pub fn check_lat(lat: f64) -> Result<f64, String> {
         Err(format!("--lat {lat} is out of range: allowed -90 to 90"))
     }
 }
+
+/// The world and place arguments shared by the per-place commands.
+#[derive(Debug, clap::Args)]
+pub struct WorldPlace {
+    /// A `*.world.ron` file or the name of a built-in world.
+    pub world: String,
+    /// Latitude in degrees, positive north.
+    #[arg(long, allow_hyphen_values = true)]
+    pub lat: f64,
+    /// Longitude in degrees, positive east.
+    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
+    pub lon: f64,
+}
+
+impl WorldPlace {
+    /// Loads the world and checks the place.
+    pub fn load(&self) -> Result<(insola::Planet, insola::Place), String> {
+        let planet = crate::worlds::load(&self.world)?;
+        let lat = check_lat(self.lat)?;
+        let place = insola::Place::from_degrees(lat, self.lon).map_err(|e| e.to_string())?;
+        Ok((planet, place))
+    }
+}

@@ -7,14 +7,9 @@ use serde::Serialize;
 /// Arguments of `insola sky`.
 #[derive(Debug, clap::Args)]
 pub struct Args {
-    /// A `*.world.ron` file or the name of a built-in world.
-    world: String,
-    /// Latitude in degrees, positive north.
-    #[arg(long, allow_hyphen_values = true)]
-    lat: f64,
-    /// Longitude in degrees, positive east.
-    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
-    lon: f64,
+    /// The world and the place on it.
+    #[command(flatten)]
+    at: super::output::WorldPlace,
     /// Solar days since the world's time zero (fractional).
     #[arg(
         long,
@@ -164,9 +159,8 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
 
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
-    let p = crate::worlds::load(&args.world)?;
-    let lat = super::output::check_lat(args.lat)?;
-    let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
+    let (p, place) = args.at.load()?;
+    let lat = args.at.lat;
     let t = resolve_time(&p, args.day, args.utc.as_deref())?;
     let mode = if args.top_of_atmosphere {
         LightMode::TopOfAtmosphere
@@ -181,7 +175,7 @@ pub fn run(args: Args) -> Result<(), String> {
         "{} at {:.3}°, {:.3}° — day {:.4} (local mean time {:.2} h)",
         p.spec.name,
         lat,
-        args.lon,
+        args.at.lon,
         r.day,
         r.local_mean_time_h
     );

@@ -6,14 +6,9 @@ use serde::Serialize;
 /// Arguments of `insola year`.
 #[derive(Debug, clap::Args)]
 pub struct Args {
-    /// A `*.world.ron` file or the name of a built-in world.
-    world: String,
-    /// Latitude in degrees, positive north.
-    #[arg(long, allow_hyphen_values = true)]
-    lat: f64,
-    /// Longitude in degrees, positive east.
-    #[arg(long, default_value_t = 0.0, allow_hyphen_values = true)]
-    lon: f64,
+    /// The world and the place on it.
+    #[command(flatten)]
+    at: super::output::WorldPlace,
     /// Print JSON instead of text.
     #[arg(long, conflicts_with = "csv")]
     json: bool,
@@ -70,9 +65,8 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
 
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
-    let p = crate::worlds::load(&args.world)?;
-    let lat = super::output::check_lat(args.lat)?;
-    let place = Place::from_degrees(lat, args.lon).map_err(|e| e.to_string())?;
+    let (p, place) = args.at.load()?;
+    let lat = args.at.lat;
     let rows = rows(&p, place);
     if args.json {
         return super::output::print_json(&rows);
@@ -91,7 +85,7 @@ pub fn run(args: Args) -> Result<(), String> {
         }
         return Ok(());
     }
-    say!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.lon);
+    say!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.at.lon);
     say!(
         "{:>6} {:>8} {:>10} {:>12} {:>12}",
         "day",
