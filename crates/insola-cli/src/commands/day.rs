@@ -1,7 +1,7 @@
 //! `insola day WORLD --lat DEG [--lon DEG] (--day N | --utc YYYY-MM-DD)`: events of a local day.
 
-use insola::events::{Crossings, DayEvents, Polar};
 use insola::Planet;
+use insola::events::{Crossings, DayEvents, Polar};
 use serde::Serialize;
 
 /// Arguments of `insola day`.
