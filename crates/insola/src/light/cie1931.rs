@@ -4,7 +4,7 @@
 //! The numbers are the CIE 1931 2° standard observer as tabulated in CIE 015 (Colorimetry) and
 //! ISO/CIE 11664-1. They were copied, unchanged, from the `colour-science` Python package
 //! (version 0.4.7, `colour.colorimetry.MSDS_CMFS['CIE 1931 2 Degree Standard Observer']`),
-//! a transcription of the CIE tables, and turned into this Rust table by a one-off script.
+//! a copy of the CIE tables, and turned into this Rust table by a one-off script.
 
 /// First wavelength of [`CIE1931_2DEG`], in nanometres.
 pub const CMF_FIRST_NM: f64 = 360.0;

@@ -281,7 +281,7 @@ mod tests {
 
     #[test]
     fn cmf_table_spot_values() {
-        // CIE 1931 2° observer (colour-science transcription of the CIE tables).
+        // CIE 1931 2° observer (colour-science copy of the CIE tables).
         let at = |nm: usize| CIE1931_2DEG[nm - 360];
         assert_eq!(at(450), [0.3362, 0.038, 1.77211]);
         assert_eq!(at(555)[1], 1.0);
