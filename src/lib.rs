@@ -59,6 +59,7 @@ mod exposure;
 mod lights;
 mod map;
 mod messages;
+mod observer_table;
 mod observers;
 mod season;
 mod settings;
@@ -86,8 +87,8 @@ use insola::WorldSpec;
 pub mod prelude {
     pub use crate::{
         ActiveWorld, DaylightPhase, ExposureFollowsSky, InsolaPlugin, InsolaSettings,
-        InsolaSystems, LightAttenuation, LocalConditions, MoonLight, SceneCompass, SeasonOfYear,
-        SeasonalClimate, SkyNotice, SkyNoticeKind, SkyState, StarLight, SurfacePlace,
+        InsolaSystems, LightAttenuation, LocalConditions, MoonLight, ObserverInstant, SceneCompass,
+        SeasonOfYear, SeasonalClimate, SkyNotice, SkyNoticeKind, SkyState, StarLight, SurfacePlace,
         ThermalSeason, WorldClock, WorldInstant,
     };
 }
@@ -211,6 +212,7 @@ impl Plugin for InsolaPlugin {
             .register_type::<MoonLight>()
             .register_type::<SurfacePlace>()
             .register_type::<LocalConditions>()
+            .register_type::<ObserverInstant>()
             .register_type::<ExposureFollowsSky>()
             .register_type::<MapProjection>()
             .register_type::<PlaceFromPosition>()
@@ -220,6 +222,7 @@ impl Plugin for InsolaPlugin {
             .insert_resource(self.settings.clone())
             .init_resource::<SkyState>()
             .init_resource::<SeasonalClimate>()
+            .init_resource::<ObserverInstant>()
             .init_resource::<GlobalAmbientLight>()
             .add_message::<SkyNotice>()
             .add_message::<WorldChanged>()

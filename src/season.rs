@@ -69,7 +69,7 @@ pub enum ThermalSeason {
     Winter,
     /// No seasonal cycle to speak of.
     Steady,
-    /// No climate yet (still being computed, or the interim model). Default.
+    /// No climate (still being computed, or the world has none). Default.
     #[default]
     Unknown,
 }

@@ -1,0 +1,28 @@
+//! The plugin's cost per frame, against an app that only turns a light.
+//!
+//! Run with `cargo bench -p bevy_insola_bench --bench plugin_frame`. Both apps are headless
+//! (MinimalPlugins, manual 60 Hz time): the baseline's only system turns one directional
+//! light; the measured app runs Insola on the demo world (star, two moons, ambient light,
+//! climate, one observer) and nothing else. Target: under 1.3× the baseline's update.
+
+use bevy_insola_bench::{insola_scene_app, light_turning_app};
+use criterion::{Criterion, criterion_main};
+
+fn frame(c: &mut Criterion) {
+    let mut g = c.benchmark_group("frame");
+    let mut baseline = light_turning_app();
+    g.bench_function("baseline_light_turning_app", |b| {
+        b.iter(|| baseline.update())
+    });
+    let mut insola = insola_scene_app();
+    g.bench_function("insola_star_2_moons_ambient_climate_1_observer", |b| {
+        b.iter(|| insola.update())
+    });
+    g.finish();
+}
+
+/// The benchmark group (in a private module so the macro's generated function needs no docs).
+mod group {
+    criterion::criterion_group!(benches, super::frame);
+}
+criterion_main!(group::benches);
