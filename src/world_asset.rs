@@ -11,7 +11,7 @@
 use std::sync::Arc;
 
 use bevy::asset::io::Reader;
-use bevy::asset::{AssetLoadFailedEvent, AssetLoader, LoadContext};
+use bevy::asset::{AssetLoadError, AssetLoadFailedEvent, AssetLoader, LoadContext};
 use bevy::prelude::*;
 use insola::{Planet, SpecError, WorldSpec};
 
@@ -224,10 +224,33 @@ pub fn apply_world_files(
         let _ = world.apply_spec(&spec, cause, &source);
     }
     for failure in failures.read() {
-        if failure.id == id {
-            world.reject(failure.path.to_string(), failure.error.to_string(), None);
+        if failure.id != id {
+            continue;
+        }
+        let (reason, field) = load_failure(&failure.path.to_string(), &failure.error);
+        // When a reload fails, Bevy retries it as an untyped load, which fails the same way: a
+        // failure that repeats the standing error is the same news and is not reported again.
+        if world.last_error.as_deref() != Some(reason.as_str()) {
+            world.reject(failure.path.to_string(), reason, field);
         }
     }
+}
+
+/// A load failure in plain words, with the field at fault when the file was read but is not a
+/// valid world. Bevy's own wording (which may carry a captured backtrace) is kept to its first
+/// line for other failures.
+fn load_failure(path: &str, error: &AssetLoadError) -> (String, Option<String>) {
+    if let AssetLoadError::AssetLoaderError(e) = error
+        && let Some(ours) = e.error().downcast_ref::<WorldFileError>()
+    {
+        let field = match ours {
+            WorldFileError::Spec(spec) => spec.field().map(str::to_string),
+            _ => None,
+        };
+        return (format!("{path}: {ours}"), field);
+    }
+    let text = error.to_string();
+    (text.lines().next().unwrap_or_default().to_string(), None)
 }
 
 /// Sends the [`WorldChanged`] and [`WorldRejected`] messages queued by [`ActiveWorld`].

@@ -3,71 +3,13 @@
 mod common;
 
 use std::path::PathBuf;
-use std::time::Duration;
 
-use bevy::asset::{AssetPlugin, AssetServer, Assets};
+use bevy::asset::{AssetServer, Assets};
 use bevy::prelude::*;
-use bevy::time::TimeUpdateStrategy;
 use bevy_insola::prelude::*;
-use bevy_insola::{WorldChangeCause, WorldChanged, WorldFile, WorldRejected};
+use bevy_insola::{WorldChangeCause, WorldFile};
+use common::assets::*;
 use common::*;
-
-#[derive(Resource, Default)]
-struct Reports {
-    changed: Vec<WorldChanged>,
-    rejected: Vec<WorldRejected>,
-}
-
-fn record(
-    mut c: MessageReader<WorldChanged>,
-    mut r: MessageReader<WorldRejected>,
-    mut reports: ResMut<Reports>,
-) {
-    reports.changed.extend(c.read().cloned());
-    reports.rejected.extend(r.read().cloned());
-}
-
-fn asset_app(root: &std::path::Path, world_file: &str) -> App {
-    let mut app = App::new();
-    app.add_plugins(MinimalPlugins)
-        .add_plugins(AssetPlugin {
-            file_path: root.display().to_string(),
-            watch_for_changes_override: Some(false),
-            ..default()
-        })
-        .add_plugins(InsolaPlugin::new().with_world_file(world_file))
-        .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_millis(
-            16,
-        )))
-        .init_resource::<Reports>()
-        .add_systems(Last, record);
-    app
-}
-
-/// Updates until `done` holds (at most about ten seconds of waiting on the loader's threads).
-fn update_until(app: &mut App, done: impl Fn(&App) -> bool) {
-    for _ in 0..2000 {
-        app.update();
-        if done(app) {
-            return;
-        }
-        std::thread::sleep(Duration::from_millis(5));
-    }
-    panic!("condition not reached");
-}
-
-fn temp_dir(name: &str) -> PathBuf {
-    let dir = std::env::temp_dir().join(format!("insola-{name}-{}", std::process::id()));
-    std::fs::create_dir_all(&dir).unwrap();
-    dir
-}
-
-fn world_name(app: &App) -> Option<String> {
-    app.world()
-        .resource::<ActiveWorld>()
-        .planet()
-        .map(|p| p.spec.name.clone())
-}
 
 #[test]
 fn the_shipped_worlds_load_through_the_asset_loader() {

@@ -5,6 +5,8 @@
     reason = "each test binary uses a different part of the helpers"
 )]
 
+pub mod assets;
+
 use std::time::Duration;
 
 use bevy::prelude::*;
