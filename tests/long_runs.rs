@@ -113,7 +113,10 @@ fn run_years(years: u64) {
     let now = app.world().resource::<WorldClock>().now();
     let drift_s = (now.whole_seconds() as i128 - (exact_ns / 1_000_000_000) as i128) as f64
         + (now.fraction() - (exact_ns % 1_000_000_000) as f64 * 1e-9);
-    assert!(drift_s.abs() < 1e-3, "clock drift {drift_s} s after {years} years");
+    assert!(
+        drift_s.abs() < 1e-3,
+        "clock drift {drift_s} s after {years} years"
+    );
 
     // Yearly notices: one new year per year boundary passed, numbered without gaps; four season
     // turns a year in their order.
@@ -130,7 +133,11 @@ fn run_years(years: u64) {
     assert_eq!(t.marks_out_of_order, 0);
     // Brindle has a 20-hour day: 240 sunrises a year at 45° N.
     let days = (now.whole_seconds() as f64 / planet.day_s()).floor() as u64;
-    assert!(t.sunrises.abs_diff(days) <= 2, "{} sunrises in {days} days", t.sunrises);
+    assert!(
+        t.sunrises.abs_diff(days) <= 2,
+        "{} sunrises in {days} days",
+        t.sunrises
+    );
 
     // Memory flat: what the run holds after its warm-up is all it ever holds.
     let growth = heap_at_end as i64 - heap_after_warm_up as i64;
