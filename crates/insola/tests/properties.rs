@@ -145,3 +145,35 @@ fn extreme_worlds_work() {
         );
     }
 }
+
+proptest! {
+    // Each case equilibrates a climate (tens of milliseconds in a debug build).
+    #![proptest_config(ProptestConfig { cases: 48, .. ProptestConfig::default() })]
+
+    #[test]
+    fn climate_temperatures_stay_within_physical_bounds(
+        p in any_planet(),
+        lat in -90.0f64..=90.0,
+        lon in -180.0f64..180.0,
+        t in 0.0f64..1e9,
+    ) {
+        let cycle = match p.equilibrate_climate() {
+            Ok(c) => c,
+            Err(insola::climate::ClimateError::NotConverged { last, .. }) => *last,
+            Err(e) => return Err(TestCaseError::fail(format!("climate failed: {e}"))),
+        };
+        // Bounds: above absolute zero, and below the black-body temperature of a surface
+        // facing the star at its closest, T = (S/σ)^¼ with σ = 5.670374 × 10⁻⁸ W m⁻² K⁻⁴
+        // (CODATA 2018; from memory): no place in equilibrium can be hotter than that.
+        let e = p.spec.orbit.eccentricity;
+        let peak_flux = p.flux_at_mean_distance_w_m2 / ((1.0 - e) * (1.0 - e));
+        let hottest_c = (peak_flux / 5.670_374e-8).powf(0.25) - 273.15;
+        let place = Place::from_degrees(lat, lon).unwrap();
+        let local = p.local_climate(&cycle, t, place, 0.0).unwrap();
+        for temperature in [local.temperature_c, local.zonal_temperature_c] {
+            prop_assert!(temperature.is_finite());
+            prop_assert!(temperature >= -273.15, "{temperature} °C");
+            prop_assert!(temperature <= hottest_c, "{temperature} °C above {hottest_c} °C");
+        }
+    }
+}
