@@ -5,6 +5,7 @@
 //! cargo run --release --example sky_scene                     # a window; keys below
 //! cargo run --release --example sky_scene -- --world tessaly-reach --lat 70
 //! cargo run --example sky_scene -- --out docs/images --at 100.5 --at 100.9   # PNGs, no window
+//! cargo run --example sky_scene --features tuning-panel -- --window-shot tuner.png
 //! ```
 //!
 //! With `--features tuning-panel` the world tuner opens over the scene: sliders for the
@@ -147,8 +148,42 @@ fn main() -> AppExit {
         );
         #[cfg(feature = "tuning-panel")]
         app.add_plugins(support::panel::WorldTunerPlugin);
+        if let Some(path) = options.window_shot.clone() {
+            app.insert_resource(WindowShot {
+                path,
+                after_frames: options.frames,
+                frame: 0,
+            })
+            .add_systems(Update, take_window_shot);
+        }
     }
     app.run()
+}
+
+/// A screenshot of the window to take after some frames, then quit.
+#[derive(Resource)]
+struct WindowShot {
+    path: std::path::PathBuf,
+    after_frames: u32,
+    frame: u32,
+}
+
+fn take_window_shot(
+    mut shot: ResMut<WindowShot>,
+    mut commands: Commands,
+    mut exit: MessageWriter<AppExit>,
+) {
+    use bevy::render::view::screenshot::{Screenshot, save_to_disk};
+    shot.frame += 1;
+    if shot.frame == shot.after_frames {
+        commands
+            .spawn(Screenshot::primary_window())
+            .observe(save_to_disk(shot.path.clone()));
+    }
+    // Saving happens a few frames after the request, on another thread.
+    if shot.frame >= shot.after_frames + 30 && shot.path.exists() {
+        exit.write(AppExit::Success);
+    }
 }
 
 /// `false` while the world tuner has the keyboard or mouse.

@@ -22,6 +22,18 @@ pub enum SeasonOfYear {
     Winter,
 }
 
+impl std::fmt::Display for SeasonOfYear {
+    /// Plain words: `spring`, `summer`, `autumn`, `winter`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            SeasonOfYear::Spring => "spring",
+            SeasonOfYear::Summer => "summer",
+            SeasonOfYear::Autumn => "autumn",
+            SeasonOfYear::Winter => "winter",
+        })
+    }
+}
+
 impl SeasonOfYear {
     /// The season at latitude `latitude_rad` when the star is at ecliptic longitude
     /// `ecliptic_longitude_rad` (0 at the northward equinox). Latitude 0 counts as north.
@@ -72,6 +84,20 @@ pub enum ThermalSeason {
     /// No climate (still being computed, or the world has none). Default.
     #[default]
     Unknown,
+}
+
+impl std::fmt::Display for ThermalSeason {
+    /// Plain words: `spring`, `summer`, `autumn`, `winter`, `steady`, `unknown`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            ThermalSeason::Spring => "spring",
+            ThermalSeason::Summer => "summer",
+            ThermalSeason::Autumn => "autumn",
+            ThermalSeason::Winter => "winter",
+            ThermalSeason::Steady => "steady",
+            ThermalSeason::Unknown => "unknown",
+        })
+    }
 }
 
 impl From<insola::climate::Season> for ThermalSeason {

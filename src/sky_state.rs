@@ -34,6 +34,20 @@ pub enum DaylightPhase {
     Night,
 }
 
+impl std::fmt::Display for DaylightPhase {
+    /// Plain words: `day`, `civil twilight`, `nautical twilight`, `astronomical twilight`,
+    /// `night`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            DaylightPhase::Day => "day",
+            DaylightPhase::CivilTwilight => "civil twilight",
+            DaylightPhase::NauticalTwilight => "nautical twilight",
+            DaylightPhase::AstronomicalTwilight => "astronomical twilight",
+            DaylightPhase::Night => "night",
+        })
+    }
+}
+
 impl DaylightPhase {
     fn from_core(phase: insola::light::TwilightPhase) -> DaylightPhase {
         use insola::light::TwilightPhase as T;

@@ -70,6 +70,10 @@ pub struct SceneOptions {
     /// Render without a window and write PNG files into this folder (or to this `.png` file).
     #[arg(long, value_name = "PATH")]
     pub out: Option<PathBuf>,
+    /// With a window: save a screenshot of it (panel included) to this `.png` file after
+    /// `--frames` frames, then quit.
+    #[arg(long, value_name = "PNG", conflicts_with = "out")]
+    pub window_shot: Option<PathBuf>,
     /// Frames to render before the picture is taken (shader pipelines compile over the first
     /// frames); after them, frames are rendered until the picture stops changing.
     #[arg(long, default_value_t = 100)]
@@ -381,7 +385,7 @@ pub fn status_text(
     };
     // Plain ASCII: Bevy's built-in font has no degree sign.
     format!(
-        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season:?} | star {alt:+.1} deg, {phase:?} | {temperature}{rate}",
+        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season} | star {alt:+.1} deg, {phase} | {temperature}{rate}",
         lat = settings.reference_latitude_deg.abs(),
         ns = if settings.reference_latitude_deg >= 0.0 {
             "N"

@@ -39,6 +39,12 @@ struct TunerState {
 
 const MAP_ROWS: usize = 37; // latitude, every 5°
 const MAP_COLUMNS: usize = 48; // fraction of the year
+/// Colours of the insolation map, from none (polar night) to the most: night blue, rust, straw.
+const HEAT_COLOURS: [egui::Color32; 3] = [
+    egui::Color32::from_rgb(18, 22, 58),
+    egui::Color32::from_rgb(170, 70, 40),
+    egui::Color32::from_rgb(250, 224, 130),
+];
 
 fn world_tuner_window(
     mut contexts: EguiContexts,
@@ -58,9 +64,12 @@ fn world_tuner_window(
     let place = settings.reference_place_clamped();
     let t = clock.elapsed_s();
 
+    // On the right, below the status line; scrolls when the window is short.
     egui::Window::new("World tuner")
-        .default_pos([12.0, 40.0])
+        .anchor(egui::Align2::RIGHT_TOP, [-8.0, 36.0])
         .default_width(340.0)
+        .default_height(660.0)
+        .vscroll(true)
         .show(ctx, |ui| {
             ui.label(egui::RichText::new(&spec.name).strong());
             egui::CollapsingHeader::new("Shape of the world")
@@ -280,13 +289,13 @@ fn readouts(
         ui.end_row();
         ui.label("star now");
         ui.label(format!(
-            "{:+.1}° high, {:?}",
+            "{:+.1}° high, {}",
             sky.star.altitude_rad.to_degrees(),
             sky.phase
         ));
         ui.end_row();
         ui.label("season");
-        ui.label(format!("{:?}", sky.season));
+        ui.label(sky.season.to_string());
         ui.end_row();
         ui.label("temperature");
         ui.label(temperature);
@@ -356,7 +365,7 @@ fn plots(
     sky: &SkyState,
     state: &TunerState,
 ) {
-    let height = 120.0;
+    let height = 90.0;
     // Star altitude over today.
     let day = planet.local_day_count(t, place.longitude_rad).floor();
     let day_h = planet.day_s() / 3600.0;
@@ -402,6 +411,8 @@ fn plots(
             plot.heatmap(
                 Heatmap::new(state.heat_map.clone(), MAP_COLUMNS)
                     .range(0.0, state.heat_max)
+                    .show_labels(false)
+                    .palette(&HEAT_COLOURS)
                     .tile_size(tile_w, tile_h)
                     .at(PlotPoint::new(0.0, -90.0 - f64::from(tile_h) / 2.0))
                     .name("insolation"),

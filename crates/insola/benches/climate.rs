@@ -52,6 +52,26 @@ fn bench(c: &mut Criterion) {
     c.bench_function("climate/one_model_year_90_bands", |b| {
         b.iter(|| model.run_year(black_box(&mut state), &mut traj, &mut scratch))
     });
+    // Scaling with the number of bands: one model year (the implicit diffusion step is a
+    // tridiagonal solve, so the cost should grow linearly).
+    let mut g = c.benchmark_group("climate_scaling/one_model_year");
+    for bands in [45, 90, 180, 360] {
+        let spec = ClimateSpec {
+            bands,
+            ..ClimateSpec::default()
+        };
+        let grid = ClimateGrid::new(bands).unwrap();
+        let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
+        let model = EnergyBalanceModel::new(&spec, ins).unwrap();
+        let mut state = model.steady_annual_mean();
+        let mut traj = vec![0.0; spec.steps_per_year * bands];
+        let mut scratch = vec![0.0; bands];
+        g.throughput(criterion::Throughput::Elements(bands as u64));
+        g.bench_function(criterion::BenchmarkId::from_parameter(bands), |b| {
+            b.iter(|| model.run_year(black_box(&mut state), &mut traj, &mut scratch))
+        });
+    }
+    g.finish();
     c.bench_function("climate/equilibrate_90_bands", |b| {
         b.iter(|| equilibrate(black_box(&spec), black_box(&forcing)).unwrap())
     });

@@ -4,7 +4,8 @@
 //! * one star position on the Earth reference world (absolute; target < 150 ns);
 //! * star directions for 1,000,000 places vs a plain loop reading and writing the same bytes;
 //! * daily-mean insolation on 1800 latitudes × 3650 days vs the straightforward per-cell loop;
-//! * scaling: batch directions for 10k / 100k / 1M places (should be linear).
+//! * scaling: batch directions for 10k / 100k / 1M places and the grid for 450 / 900 / 1800
+//!   latitudes (both should be linear).
 
 use criterion::{BenchmarkId, Criterion, Throughput, black_box, criterion_main};
 use glam::DVec3;
@@ -114,6 +115,20 @@ fn insolation_grid(c: &mut Criterion) {
     g.bench_function("grid_precomputed_parallel", |b| {
         b.iter(|| daily_mean_grid_w_m2(1361.0, &lats, &days, black_box(&mut out)))
     });
+    g.finish();
+    // Scaling with the grid's size: 450, 900 and 1800 latitudes over the same days.
+    let mut g = c.benchmark_group("insolation_grid_scaling");
+    g.sample_size(10);
+    for rows in [450, 900, 1800] {
+        let lats: Vec<f64> = (0..rows)
+            .map(|j| (-90.0 + (j as f64 + 0.5) * 180.0 / rows as f64).to_radians())
+            .collect();
+        let mut out = vec![0.0; rows * days.len()];
+        g.throughput(Throughput::Elements((rows * days.len()) as u64));
+        g.bench_function(BenchmarkId::from_parameter(rows), |b| {
+            b.iter(|| daily_mean_grid_w_m2(1361.0, &lats, &days, black_box(&mut out)))
+        });
+    }
     g.finish();
 }
 
