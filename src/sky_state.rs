@@ -10,7 +10,7 @@ use bevy::color::LinearRgba;
 use bevy::math::DVec3;
 use bevy::prelude::*;
 use insola::Planet;
-use insola::lighting::{BodyLight, LightingState};
+use insola::lighting::{BodyLight, LightMode, LightingState};
 
 use crate::clock::WorldClock;
 use crate::season::SeasonOfYear;
@@ -186,8 +186,9 @@ pub struct SkyState {
     pub moons: Vec<SkyMoon>,
     /// Day, a twilight, or night.
     pub phase: DaylightPhase,
-    /// Total illuminance on a horizontal surface (star, sky and moons), lux; what an
-    /// incident-light meter lying on the ground reads. Feeds [`crate::ExposureFollowsSky`].
+    /// Total illuminance on a horizontal surface at the ground (star, sky and moons), lux; what
+    /// an incident-light meter lying on the ground reads, whichever light mode the lights use.
+    /// Feeds [`crate::ExposureFollowsSky`].
     pub horizontal_illuminance_lux: f64,
     /// The calendar date.
     pub date: SkyDate,
@@ -196,6 +197,18 @@ pub struct SkyState {
     /// The core's full lighting state (not reflected).
     #[reflect(ignore)]
     pub lighting: Option<LightingState>,
+}
+
+/// Star, sky and moons on a horizontal surface, lux.
+fn ground_illuminance_lux(lighting: &LightingState) -> f64 {
+    let on_ground = |light: &BodyLight| light.illuminance_lux * light.direction_enu.z.max(0.0);
+    on_ground(&lighting.star)
+        + lighting.sky.illuminance_lux
+        + lighting
+            .moons
+            .iter()
+            .map(|m| on_ground(&m.light))
+            .sum::<f64>()
 }
 
 impl SkyState {
@@ -216,12 +229,14 @@ impl SkyState {
                 eclipse_fraction: m.eclipse_fraction,
             })
             .collect();
-        let horizontal = star.horizontal_illuminance_lux()
-            + lighting.sky.illuminance_lux
-            + moons
-                .iter()
-                .map(|m| m.body.horizontal_illuminance_lux())
-                .sum::<f64>();
+        // The meter reads the light at the ground, also when the lights carry the light above
+        // the air (the engine's atmosphere then dims them on their way to the scene).
+        let horizontal = match lighting.mode {
+            LightMode::Ground => ground_illuminance_lux(&lighting),
+            LightMode::TopOfAtmosphere => {
+                ground_illuminance_lux(&planet.lighting(t_s, place, LightMode::Ground))
+            }
+        };
         let date = planet.date_at(t_s);
         let ecliptic_longitude = planet.star_instant(t_s).ecliptic_longitude_rad;
         let [r, g, b] = lighting.sky.color_linear_rgb;

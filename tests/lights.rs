@@ -135,6 +135,17 @@ fn both_modes_carry_the_cores_light_once() {
             core.star.illuminance_lux * 1e-5
         );
         lux.push(photometric);
+        // The exposure meter reads the light at the ground in both modes.
+        let ground_core = planet.lighting(t, place, LightMode::Ground);
+        let meter = ground_core.star.illuminance_lux * ground_core.star.direction_enu.z.max(0.0)
+            + ground_core.sky.illuminance_lux
+            + ground_core
+                .moons
+                .iter()
+                .map(|m| m.light.illuminance_lux * m.light.direction_enu.z.max(0.0))
+                .sum::<f64>();
+        let sky = app.world().resource::<SkyState>();
+        assert_approx_eq!(sky.horizontal_illuminance_lux, meter, meter * 1e-9);
     }
     let (ground, above_air) = (lux[0], lux[1]);
     assert!(
