@@ -23,6 +23,18 @@ fn wait_for_climate(app: &mut App) {
     panic!("the climate did not become ready");
 }
 
+/// One observer entity per `(latitude, longitude)` in degrees.
+fn spawn_places(app: &mut App, places: &[(f64, f64)]) -> Vec<Entity> {
+    places
+        .iter()
+        .map(|&(lat, lon)| {
+            app.world_mut()
+                .spawn(SurfacePlace::from_degrees(lat, lon).unwrap())
+                .id()
+        })
+        .collect()
+}
+
 /// The world time the observers describe.
 fn observed_at(app: &App) -> f64 {
     app.world()
@@ -36,14 +48,7 @@ fn observers_get_the_cores_star_and_a_temperature() {
     let planet = planet(BRINDLE);
     let mut app = app(BRINDLE, settings_at(0.0, 0.0), 500.0, FRAME);
     let places = [(0.0, 0.0), (35.0, 120.0), (-60.0, -45.0), (80.0, 10.0)];
-    let ids: Vec<Entity> = places
-        .iter()
-        .map(|&(lat, lon)| {
-            app.world_mut()
-                .spawn(SurfacePlace::from_degrees(lat, lon).unwrap())
-                .id()
-        })
-        .collect();
+    let ids = spawn_places(&mut app, &places);
     wait_for_climate(&mut app);
     for _ in 0..10 {
         app.update();
@@ -230,14 +235,7 @@ fn many_observers_share_a_table_that_agrees_with_direct_queries() {
             (lat, -180.0 + 360.0 * i as f64 / n as f64)
         })
         .collect();
-    let ids: Vec<Entity> = places
-        .iter()
-        .map(|&(lat, lon)| {
-            app.world_mut()
-                .spawn(SurfacePlace::from_degrees(lat, lon).unwrap())
-                .id()
-        })
-        .collect();
+    let ids = spawn_places(&mut app, &places);
     wait_for_climate(&mut app);
     let t = observed_at(&app);
     let climate = app.world().resource::<SeasonalClimate>();
