@@ -162,12 +162,18 @@ proptest! {
             Err(insola::climate::ClimateError::NotConverged { last, .. }) => *last,
             Err(e) => return Err(TestCaseError::fail(format!("climate failed: {e}"))),
         };
-        // Bounds: above absolute zero, and below the black-body temperature of a surface
-        // facing the star at its closest, T = (S/σ)^¼ with σ = 5.670374 × 10⁻⁸ W m⁻² K⁻⁴
-        // (CODATA 2018; from memory): no place in equilibrium can be hotter than that.
+        // Bounds: above absolute zero, and below the temperature at which a gray body of the
+        // model's least emissivity ε radiates the star's flux at its closest approach,
+        // T = (S/(εσ))^¼, σ = 5.670374 × 10⁻⁸ W m⁻² K⁻⁴ (CODATA 2018; from memory). The model
+        // never emits less than that gray body (ε is matched to its A + B·T at 60 °C), so no
+        // band can absorb more than it sheds above that temperature.
         let e = p.spec.orbit.eccentricity;
         let peak_flux = p.flux_at_mean_distance_w_m2 / ((1.0 - e) * (1.0 - e));
-        let hottest_c = (peak_flux / 5.670_374e-8).powf(0.25) - 273.15;
+        let spec = p.climate_spec();
+        let sigma = 5.670_374e-8;
+        let emissivity = (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * 60.0)
+            / (sigma * (60.0f64 + 273.15).powi(4));
+        let hottest_c = (peak_flux / (emissivity * sigma)).powf(0.25) - 273.15;
         let place = Place::from_degrees(lat, lon).unwrap();
         let local = p.local_climate(&cycle, t, place, 0.0).unwrap();
         for temperature in [local.temperature_c, local.zonal_temperature_c] {

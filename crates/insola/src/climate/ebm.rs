@@ -85,7 +85,26 @@ pub struct EnergyBalanceModel {
     step_matrix: Tridiagonal,
     /// `(B − L)` factorised, for the steady annual-mean state.
     steady_matrix: Tridiagonal,
+    /// Off-diagonals and diagonals of the two systems, for rows made stiffer by the radiative
+    /// limb (see [`EnergyBalanceModel::limb_emission_w_m2`]).
+    lower: Vec<f64>,
+    upper: Vec<f64>,
+    diag_step: Vec<f64>,
+    diag_steady: Vec<f64>,
+    /// Emissivity of the gray-body limb, matched to `A + B·T` at [`LIMB_MATCH_C`].
+    limb_emissivity: f64,
 }
+
+/// Temperature, °C, up to which the linear longwave law `A + B·T` is used as it stands: the
+/// Budyko-type fit is made over Earth's range of surface temperatures (about −50 to 40 °C;
+/// common practice, no source). The gray-body limb is matched to it here.
+pub const LIMB_MATCH_C: f64 = 60.0;
+
+/// Absolute zero, °C.
+const ABSOLUTE_ZERO_C: f64 = -273.15;
+
+/// Stefan–Boltzmann constant, W m⁻² K⁻⁴ (CODATA 2018; from memory).
+pub const STEFAN_BOLTZMANN_W_M2_K4: f64 = 5.670_374_419e-8;
 
 impl EnergyBalanceModel {
     /// Sets up the model; validates the spec (errors name `climate.*` fields) and checks that
@@ -129,11 +148,19 @@ impl EnergyBalanceModel {
             .iter()
             .map(|&x| 1.0 - spec.ice_free_albedo(x))
             .collect();
+        let match_k = LIMB_MATCH_C + 273.15;
+        let limb_emissivity = (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * LIMB_MATCH_C)
+            / (STEFAN_BOLTZMANN_W_M2_K4 * match_k.powi(4));
         Ok(EnergyBalanceModel {
             spec: spec.clone(),
             coalbedo_ice: 1.0 - spec.ice_albedo,
             step_matrix: Tridiagonal::factorise(&lower, &diag_step, &upper),
             steady_matrix: Tridiagonal::factorise(&lower, &diag_steady, &upper),
+            lower,
+            upper,
+            diag_step,
+            diag_steady,
+            limb_emissivity,
             grid,
             insolation,
             heat_capacity,
@@ -183,6 +210,32 @@ impl EnergyBalanceModel {
         }
     }
 
+    /// Emission beyond the linear law at `t_c` (°C), W m⁻², and its slope, W m⁻² K⁻¹.
+    ///
+    /// The outgoing longwave radiation is `max(A + B·T, ε σ T_K⁴)`: the linear law within its
+    /// range, and a gray body of emissivity ε (matched to the linear law at
+    /// [`LIMB_MATCH_C`]) where the linear law would emit less — on very hot bands, where a
+    /// straight line lets temperatures run away, and on very cold ones, where it would fall to
+    /// zero and below. Zero in between, so Earth-like climates are unchanged.
+    #[inline]
+    pub fn limb_emission_w_m2(&self, t_c: f64) -> (f64, f64) {
+        let tk = (t_c + 273.15).max(0.0);
+        let gray = self.limb_emissivity * STEFAN_BOLTZMANN_W_M2_K4 * tk.powi(4);
+        let linear = self.spec.olr_a_w_m2 + self.spec.olr_b_w_m2_per_k * t_c;
+        if gray > linear {
+            let slope = 4.0 * self.limb_emissivity * STEFAN_BOLTZMANN_W_M2_K4 * tk.powi(3)
+                - self.spec.olr_b_w_m2_per_k;
+            (gray - linear, slope.max(0.0))
+        } else {
+            (0.0, 0.0)
+        }
+    }
+
+    /// Outgoing longwave radiation at `t_c` (°C), W m⁻²: `A + B·T` plus the limb's extra.
+    pub fn olr_w_m2(&self, t_c: f64) -> f64 {
+        self.spec.olr_a_w_m2 + self.spec.olr_b_w_m2_per_k * t_c + self.limb_emission_w_m2(t_c).0
+    }
+
     /// Advances `temps_c` (one value per band, °C) by one step to the end of step `k`, i.e. to
     /// year fraction `(k + 1)/steps`, using the insolation at that time. `scratch` must have one
     /// entry per band. Returns nothing; no allocation.
@@ -190,10 +243,29 @@ impl EnergyBalanceModel {
         let q = self.insolation.row((k + 1) % self.insolation.steps());
         let c_dt = self.heat_capacity / self.dt_s;
         let a = self.spec.olr_a_w_m2;
+        let mut limb = false;
         for (j, (r, &t)) in scratch.iter_mut().zip(temps_c.iter()).enumerate() {
             *r = c_dt * t + q[j] * self.coalbedo(j, t) - a;
+            limb |= self.limb_emission_w_m2(t).0 > 0.0;
         }
-        self.step_matrix.solve_in_place(scratch);
+        if limb {
+            // Bands on the radiative limb: its emission linearised about the old temperature,
+            // `R(T) ≈ R(T₀) + R'(T₀)(T − T₀)`, which changes the diagonal (semi-implicit, so a
+            // hot band cannot overshoot). Only such worlds pay for a fresh factorisation.
+            let mut diag = self.diag_step.clone();
+            for (j, (r, &t)) in scratch.iter_mut().zip(temps_c.iter()).enumerate() {
+                let (extra, slope) = self.limb_emission_w_m2(t);
+                *r -= extra - slope * t;
+                diag[j] += slope;
+            }
+            Tridiagonal::factorise(&self.lower, &diag, &self.upper).solve_in_place(scratch);
+            // Linearised far from it, a band could step past absolute zero.
+            for t in scratch.iter_mut() {
+                *t = t.max(ABSOLUTE_ZERO_C);
+            }
+        } else {
+            self.step_matrix.solve_in_place(scratch);
+        }
         temps_c.copy_from_slice(scratch);
     }
 
@@ -208,25 +280,51 @@ impl EnergyBalanceModel {
     }
 
     /// Steady state under the annual-mean insolation, °C per band: `(B − L)·T = Q̄·a(T) − A`,
-    /// with the ice mask found by fixed-point iteration from an ice-free start (at most 50
-    /// passes; the ice-free branch is found when it exists). This is the analytic annual-mean
+    /// with the ice mask found by fixed-point iteration from an ice-free start (at most 100
+    /// passes; the ice-free branch is found when it exists) and the radiative limb by Newton
+    /// steps in the same passes. This is the analytic annual-mean
     /// solution of North (1975) in discrete form, and the start of the seasonal integration.
     pub fn steady_annual_mean(&self) -> Vec<f64> {
         let qbar = self.insolation.mean_per_band();
         let n = self.grid.len();
         let mut t = vec![f64::INFINITY; n];
         let mut next = vec![0.0; n];
-        for _ in 0..50 {
+        for _ in 0..100 {
+            let mut diag: Option<Vec<f64>> = None;
             for j in 0..n {
                 next[j] = qbar[j] * self.coalbedo(j, t[j]) - self.spec.olr_a_w_m2;
+                // The radiative limb, linearised about the last pass (Newton's method on it).
+                let (extra, slope) = if t[j].is_finite() {
+                    self.limb_emission_w_m2(t[j])
+                } else {
+                    (0.0, 0.0)
+                };
+                if extra > 0.0 {
+                    next[j] -= extra - slope * t[j];
+                    diag.get_or_insert_with(|| self.diag_steady.clone())[j] += slope;
+                }
             }
-            self.steady_matrix.solve_in_place(&mut next);
+            let on_limb = diag.is_some();
+            match diag {
+                Some(d) => {
+                    Tridiagonal::factorise(&self.lower, &d, &self.upper).solve_in_place(&mut next);
+                    // Newton steps from far away could pass absolute zero; it bounds them.
+                    for t in next.iter_mut() {
+                        *t = t.max(ABSOLUTE_ZERO_C);
+                    }
+                }
+                None => self.steady_matrix.solve_in_place(&mut next),
+            }
             let same_mask = t
                 .iter()
                 .zip(&next)
                 .all(|(&a, &b)| self.is_ice(a) == self.is_ice(b));
+            // Settled when the limb plays no part, or when the Newton steps have converged.
+            let needs_limb = next.iter().any(|&x| self.limb_emission_w_m2(x).0 > 0.0);
+            let settled = !(on_limb || needs_limb)
+                || t.iter().zip(&next).all(|(&a, &b)| (a - b).abs() < 1e-6);
             std::mem::swap(&mut t, &mut next);
-            if same_mask {
+            if same_mask && settled {
                 break;
             }
         }
@@ -237,6 +335,41 @@ impl EnergyBalanceModel {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn longwave_limb_only_outside_the_linear_range() {
+        let spec = ClimateSpec::default();
+        let grid = ClimateGrid::new(spec.bands).unwrap();
+        let forcing = crate::climate::AnnualForcing {
+            s0_w_m2: 1361.0,
+            year_s: 3.15e7,
+            samples: vec![
+                crate::climate::SeasonSample {
+                    declination_rad: 0.0,
+                    distance_factor: 1.0
+                };
+                12
+            ],
+        };
+        let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
+        let m = EnergyBalanceModel::new(&spec, ins).unwrap();
+        // Earth's range: the linear law as it stands.
+        for t in [-60.0, -20.0, 0.0, 15.0, 30.0, 59.0] {
+            assert_eq!(m.limb_emission_w_m2(t), (0.0, 0.0), "{t} °C");
+            assert_eq!(m.olr_w_m2(t), spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * t);
+        }
+        // Continuous where it takes over, and a gray body far above: σT⁴ grows as T_K⁴.
+        assert!(m.limb_emission_w_m2(60.001).0 < 1e-2);
+        let ratio = m.olr_w_m2(400.0) / m.olr_w_m2(200.0);
+        let expected = (673.15f64 / 473.15).powi(4);
+        assert!(
+            (ratio / expected - 1.0).abs() < 1e-9,
+            "{ratio} vs {expected}"
+        );
+        // Very cold: the linear law would emit nothing at −A/B; the limb keeps emission positive.
+        let cold = -spec.olr_a_w_m2 / spec.olr_b_w_m2_per_k;
+        assert!(m.olr_w_m2(cold) > 0.0 && m.olr_w_m2(-270.0) >= 0.0);
+    }
 
     #[test]
     fn thomas_solves_a_small_system() {

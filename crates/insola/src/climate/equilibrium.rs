@@ -11,8 +11,10 @@
 //! mean and the first Legendre mode `x`, both exact eigenvectors of the discrete operator —
 //! are jumped to their fixed point by a geometric (Aitken-type) extrapolation with their known
 //! decay factors per year, `(C/Δt / (C/Δt + B + n(n+1)D))^steps`. With ice the jump is an
-//! approximation, so it is only taken while the ice mask stops changing; the stopping rule
-//! above is checked on a plain year, never on an extrapolated state.
+//! approximation, so it is only taken while the ice mask stops changing, and it is not taken
+//! at all on a year that reached the radiative limb of the longwave law (whose decay is
+//! faster); the stopping rule above is checked on a plain year, never on an extrapolated
+//! state.
 
 use thiserror::Error;
 
@@ -133,7 +135,12 @@ pub fn equilibrate_model(
             ));
         }
         let ice = trajectory.iter().filter(|&&t| model.is_ice(t)).count();
-        if ice == last_ice {
+        // The decay factors are those of the linear law: a year that touched the radiative
+        // limb decays faster than they say, so it is not jumped.
+        let on_limb = trajectory
+            .iter()
+            .any(|&t| model.limb_emission_w_m2(t).0 > 0.0);
+        if ice == last_ice && !on_limb {
             decay.extrapolate(model.grid(), &delta, &mut state);
         }
         last_ice = ice;

@@ -374,11 +374,13 @@ proptest! {
             Err(ClimateError::NotConverged { last, .. }) => *last,
             Err(other) => panic!("{other}"),
         };
-        // Maximum principle of the implicit scheme: every band stays between the unlit
-        // equilibrium −A/B and the equilibrium under the strongest sunlight S0/ρ_min².
+        // Maximum principle of the implicit scheme: every band stays between absolute zero
+        // (an unlit band on the gray-body limb cools toward it; the linear law alone would
+        // stop at −A/B, where it emits nothing) and the linear-law equilibrium under the
+        // strongest sunlight S0/ρ_min² (the limb only adds emission, so it is lower still).
         let rho_min = 1.0 - e;
         let t_max = (s0 / (rho_min * rho_min) - a) / b + 1e-6;
-        let t_min = -a / b - 1e-6;
+        let t_min = -273.15;
         for k in 0..cycle.steps() {
             for &t in cycle.temperatures_c(k) {
                 prop_assert!(t.is_finite() && t >= t_min && t <= t_max, "{t} not in {t_min}..{t_max}");
