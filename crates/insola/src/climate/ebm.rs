@@ -93,6 +93,8 @@ pub struct EnergyBalanceModel {
     diag_steady: Vec<f64>,
     /// Emissivity of the gray-body limb, matched to `A + B·T` at [`LIMB_MATCH_C`].
     limb_emissivity: f64,
+    /// Below this temperature, °C, the limb emits more than the linear law too (−∞ if never).
+    limb_cold_c: f64,
 }
 
 /// Temperature, °C, up to which the linear longwave law `A + B·T` is used as it stands: the
@@ -151,8 +153,29 @@ impl EnergyBalanceModel {
         let match_k = LIMB_MATCH_C + 273.15;
         let limb_emissivity = (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * LIMB_MATCH_C)
             / (STEFAN_BOLTZMANN_W_M2_K4 * match_k.powi(4));
+        // The gray body minus the linear law is convex in T, zero at the match point: it has at
+        // most one other root, below it, found by bisection.
+        let excess = |t: f64| {
+            limb_emissivity * STEFAN_BOLTZMANN_W_M2_K4 * (t + 273.15).powi(4)
+                - (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * t)
+        };
+        let limb_cold_c = if excess(ABSOLUTE_ZERO_C) > 0.0 {
+            let (mut lo, mut hi) = (ABSOLUTE_ZERO_C, LIMB_MATCH_C - 1.0);
+            for _ in 0..60 {
+                let mid = 0.5 * (lo + hi);
+                if excess(mid) > 0.0 {
+                    lo = mid
+                } else {
+                    hi = mid
+                }
+            }
+            lo
+        } else {
+            f64::NEG_INFINITY
+        };
         Ok(EnergyBalanceModel {
             spec: spec.clone(),
+            limb_cold_c,
             coalbedo_ice: 1.0 - spec.ice_albedo,
             step_matrix: Tridiagonal::factorise(&lower, &diag_step, &upper),
             steady_matrix: Tridiagonal::factorise(&lower, &diag_steady, &upper),
@@ -219,6 +242,9 @@ impl EnergyBalanceModel {
     /// zero and below. Zero in between, so Earth-like climates are unchanged.
     #[inline]
     pub fn limb_emission_w_m2(&self, t_c: f64) -> (f64, f64) {
+        if !self.on_limb(t_c) {
+            return (0.0, 0.0);
+        }
         let tk = (t_c + 273.15).max(0.0);
         let gray = self.limb_emissivity * STEFAN_BOLTZMANN_W_M2_K4 * tk.powi(4);
         let linear = self.spec.olr_a_w_m2 + self.spec.olr_b_w_m2_per_k * t_c;
@@ -229,6 +255,12 @@ impl EnergyBalanceModel {
         } else {
             (0.0, 0.0)
         }
+    }
+
+    /// `true` where the gray-body limb emits more than the linear law (two comparisons).
+    #[inline]
+    pub fn on_limb(&self, t_c: f64) -> bool {
+        t_c > LIMB_MATCH_C || t_c < self.limb_cold_c
     }
 
     /// Outgoing longwave radiation at `t_c` (°C), W m⁻²: `A + B·T` plus the limb's extra.
@@ -246,7 +278,7 @@ impl EnergyBalanceModel {
         let mut limb = false;
         for (j, (r, &t)) in scratch.iter_mut().zip(temps_c.iter()).enumerate() {
             *r = c_dt * t + q[j] * self.coalbedo(j, t) - a;
-            limb |= self.limb_emission_w_m2(t).0 > 0.0;
+            limb |= self.on_limb(t);
         }
         if limb {
             // Bands on the radiative limb: its emission linearised about the old temperature,
@@ -320,7 +352,7 @@ impl EnergyBalanceModel {
                 .zip(&next)
                 .all(|(&a, &b)| self.is_ice(a) == self.is_ice(b));
             // Settled when the limb plays no part, or when the Newton steps have converged.
-            let needs_limb = next.iter().any(|&x| self.limb_emission_w_m2(x).0 > 0.0);
+            let needs_limb = next.iter().any(|&x| self.on_limb(x));
             let settled = !(on_limb || needs_limb)
                 || t.iter().zip(&next).all(|(&a, &b)| (a - b).abs() < 1e-6);
             std::mem::swap(&mut t, &mut next);

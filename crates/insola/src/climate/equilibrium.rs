@@ -137,9 +137,7 @@ pub fn equilibrate_model(
         let ice = trajectory.iter().filter(|&&t| model.is_ice(t)).count();
         // The decay factors are those of the linear law: a year that touched the radiative
         // limb decays faster than they say, so it is not jumped.
-        let on_limb = trajectory
-            .iter()
-            .any(|&t| model.limb_emission_w_m2(t).0 > 0.0);
+        let on_limb = trajectory.iter().any(|&t| model.on_limb(t));
         if ice == last_ice && !on_limb {
             decay.extrapolate(model.grid(), &delta, &mut state);
         }

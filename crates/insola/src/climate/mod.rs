@@ -16,7 +16,7 @@
 //! | `C` | column heat capacity: `ρ_w c_w h` over ocean, land value over land, by area | J m⁻² K⁻¹ | `mixed_layer_depth_m`, `land_fraction`, `land_heat_capacity_j_m2_per_k` |
 //! | `Q` | daily-mean top-of-atmosphere insolation (Berger 1978) | W m⁻² | from [`AnnualForcing`] |
 //! | `a` | co-albedo: `1 − (a0 + a2·P2(x))`, or `1 − ice_albedo` where `T < ice_temperature_c` | — | `albedo_a0`, `albedo_a2`, `ice_*` |
-//! | `A + B·T` | outgoing longwave radiation, T in °C | W m⁻² | `olr_a_w_m2`, `olr_b_w_m2_per_k` |
+//! | `A + B·T` | outgoing longwave radiation, T in °C (a gray body matched at 60 °C takes over where it emits more: above 60 °C and on very cold bands) | W m⁻² | `olr_a_w_m2`, `olr_b_w_m2_per_k` |
 //! | `D` | meridional diffusion | W m⁻² K⁻¹ | `diffusion_w_m2_per_k` |
 //!
 //! Numerics ([`EnergyBalanceModel`]): finite volumes in `x` (energy conserving, zero flux at the
