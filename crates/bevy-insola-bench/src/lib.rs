@@ -83,10 +83,18 @@ pub fn places(n: usize) -> impl Iterator<Item = SurfacePlace> {
 /// Baseline of the observer row: `n` observer entities (the same components the plugin's
 /// observers have) visited each frame by a query that does nothing with them.
 pub fn empty_query_app(n: usize) -> App {
+    observers_without_plugin(n, visit_observers)
+}
+
+/// A bare app with `n` observer entities and `system` in `Update`, run once.
+fn observers_without_plugin<M>(
+    n: usize,
+    system: impl bevy::ecs::schedule::IntoScheduleConfigs<bevy::ecs::system::ScheduleSystem, M>,
+) -> App {
     let mut app = bare_app();
     app.world_mut()
         .spawn_batch(places(n).map(|p| (p, LocalConditions::default())));
-    app.add_systems(Update, visit_observers);
+    app.add_systems(Update, system);
     app.update();
     app
 }
@@ -101,12 +109,7 @@ fn visit_observers(observers: Query<(&SurfacePlace, &mut LocalConditions)>) {
 /// conditions written with a trivial value, the way the plugin walks them (component columns
 /// as slices). It shows how much of the plugin's update is the memory traffic itself.
 pub fn touching_app(n: usize) -> App {
-    let mut app = bare_app();
-    app.world_mut()
-        .spawn_batch(places(n).map(|p| (p, LocalConditions::default())));
-    app.add_systems(Update, touch_observers);
-    app.update();
-    app
+    observers_without_plugin(n, touch_observers)
 }
 
 fn touch_observers(mut observers: Query<(&SurfacePlace, &mut LocalConditions)>) {
