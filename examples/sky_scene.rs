@@ -94,7 +94,15 @@ fn main() -> AppExit {
             look_azimuth_deg: look,
             headless,
         })
-        .add_systems(Startup, (spawn_scenery, spawn_lights, spawn_camera))
+        .add_systems(
+            Startup,
+            (
+                spawn_scenery,
+                spawn_lights,
+                spawn_camera,
+                support::stars::spawn_star_field,
+            ),
+        )
         .add_systems(
             Update,
             (
@@ -102,6 +110,7 @@ fn main() -> AppExit {
                 rebuild_sundial,
                 support::size_star_disc,
                 support::update_status_line,
+                support::stars::turn_star_field,
             ),
         );
 

@@ -9,6 +9,7 @@
 pub mod capture;
 #[cfg(feature = "tuning-panel")]
 pub mod panel;
+pub mod stars;
 
 use std::path::PathBuf;
 
