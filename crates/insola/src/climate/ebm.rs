@@ -105,8 +105,7 @@ pub const LIMB_MATCH_C: f64 = 60.0;
 /// Absolute zero, °C.
 const ABSOLUTE_ZERO_C: f64 = -273.15;
 
-/// Stefan–Boltzmann constant, W m⁻² K⁻⁴ (CODATA 2018; from memory).
-pub const STEFAN_BOLTZMANN_W_M2_K4: f64 = 5.670_374_419e-8;
+use crate::light::STEFAN_BOLTZMANN_W_M2_K4;
 
 impl EnergyBalanceModel {
     /// Sets up the model; validates the spec (errors name `climate.*` fields) and checks that
