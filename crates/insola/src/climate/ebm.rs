@@ -16,6 +16,7 @@ use super::forcing::BandInsolation;
 use super::grid::ClimateGrid;
 use super::spec::ClimateSpec;
 use crate::error::SpecError;
+use crate::light::STEFAN_BOLTZMANN_W_M2_K4;
 
 /// A factorised symmetric-or-not tridiagonal matrix (Thomas algorithm).
 ///
@@ -104,8 +105,6 @@ pub const LIMB_MATCH_C: f64 = 60.0;
 
 /// Absolute zero, °C.
 const ABSOLUTE_ZERO_C: f64 = -273.15;
-
-use crate::light::STEFAN_BOLTZMANN_W_M2_K4;
 
 impl EnergyBalanceModel {
     /// Sets up the model; validates the spec (errors name `climate.*` fields) and checks that
