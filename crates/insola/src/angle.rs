@@ -28,6 +28,19 @@ pub fn wrap_pi(a: f64) -> f64 {
     wrap_tau(a + PI) - PI
 }
 
+/// The fraction of a cycle of `period` elapsed at `t` (same units), in `[0, 1)`.
+///
+/// Why not a floating-point remainder: it is exact, but costs as much as a sine, and buys
+/// nothing here, since `t` itself is only known to its last bit: the quotient's rounding adds
+/// an error of the same size (one part in 2⁵² of `t / period` cycles).
+#[inline]
+pub fn cycle_fraction(t: f64, period: f64) -> f64 {
+    let q = t / period;
+    let f = q - q.floor();
+    // `q − floor(q)` can round up to 1 for tiny negative q.
+    if f < 1.0 { f } else { 0.0 }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -38,5 +51,30 @@ mod tests {
         assert_eq!(wrap_tau(-1e-20), 0.0);
         assert!((wrap_pi(3.0 * PI / 2.0) + PI / 2.0).abs() < 1e-15);
         assert!(wrap_pi(PI) < PI);
+    }
+
+    #[test]
+    fn cycle_fraction_matches_the_exact_remainder() {
+        // Against the exact floating-point remainder, over ten thousand years of a 365-day
+        // cycle and of a 2.5-hour one, and before time zero.
+        for (period, span) in [
+            (365.0 * 86_400.0, 3.2e11),
+            (9_000.0, 3.2e11),
+            (86_164.0, 1e9),
+        ] {
+            for k in -50..=50 {
+                let t = span * k as f64 / 50.0 + 0.123;
+                let exact = t.rem_euclid(period) / period;
+                let f = cycle_fraction(t, period);
+                assert!((0.0..1.0).contains(&f));
+                let d = (f - exact).abs().min(1.0 - (f - exact).abs());
+                // Both carry the rounding of t: one part in 2⁵² of t / period cycles.
+                assert!(
+                    d <= 4.0 * f64::EPSILON * (t / period).abs().max(1.0),
+                    "{t} {period}"
+                );
+            }
+        }
+        assert_eq!(cycle_fraction(-1e-300, 1.0), 0.0);
     }
 }

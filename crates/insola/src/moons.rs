@@ -248,7 +248,7 @@ impl MoonOrbit {
 
     /// Position relative to the planet's centre at world time `t_s`, ecliptic frame, metres.
     pub fn position_at(&self, t_s: f64) -> DVec3 {
-        let frac = t_s.rem_euclid(self.period_s) / self.period_s;
+        let frac = crate::angle::cycle_fraction(t_s, self.period_s);
         self.position_at_mean_anomaly(self.mean_anomaly_at_zero_rad + TAU * frac)
     }
 }

@@ -111,6 +111,9 @@ pub struct OrbitState {
     pub star_longitude_rad: f64,
     /// Mean longitude of the star, `L = M + ϖ`, radians in `[0, 2π)` (drives mean solar time).
     pub star_mean_longitude_rad: f64,
+    /// Sine and cosine of [`OrbitState::star_longitude_rad`] (from the eccentric anomaly's, no
+    /// further trigonometry).
+    pub star_longitude_sin_cos: (f64, f64),
 }
 
 /// A Keplerian orbit with a fixed periapsis (no precession).
@@ -122,6 +125,8 @@ pub struct Orbit {
     pub period_s: f64,
     /// Star's ecliptic longitude at periapsis ϖ, radians.
     pub periapsis_longitude_rad: f64,
+    /// Sine and cosine of ϖ (kept with it: set both or build with [`Orbit::new`]).
+    pub periapsis_sin_cos: (f64, f64),
     /// Mean anomaly at time zero, radians.
     pub mean_anomaly_at_zero_rad: f64,
 }
@@ -140,6 +145,7 @@ impl Orbit {
             eccentricity,
             period_s,
             periapsis_longitude_rad,
+            periapsis_sin_cos: periapsis_longitude_rad.sin_cos(),
             mean_anomaly_at_zero_rad: mean_anomaly_from_true(v0, eccentricity),
         }
     }
@@ -149,10 +155,10 @@ impl Orbit {
         TAU / self.period_s
     }
 
-    /// Mean anomaly at time `t_s`, radians in `[0, 2π)`. Exact for any `t_s`: whole orbits are
-    /// removed in time before the angle is formed.
+    /// Mean anomaly at time `t_s`, radians in `[0, 2π)`. Whole orbits are removed in time
+    /// before the angle is formed, so the angle keeps its precision at any `t_s`.
     pub fn mean_anomaly_rad(&self, t_s: f64) -> f64 {
-        let frac = t_s.rem_euclid(self.period_s) / self.period_s;
+        let frac = crate::angle::cycle_fraction(t_s, self.period_s);
         wrap_tau(self.mean_anomaly_at_zero_rad + TAU * frac)
     }
 
@@ -168,13 +174,19 @@ impl Orbit {
         let (_, se, ce) = solve_kepler_sin_cos(mean_anomaly_rad, e);
         // True anomaly from sin E and cos E (one atan2):
         // cos v = (cos E − e)/(1 − e cos E), sin v = √(1 − e²) sin E/(1 − e cos E).
-        let v = ((1.0 - e * e).sqrt() * se).atan2(ce - e);
+        let (y, x) = ((1.0 - e * e).sqrt() * se, ce - e);
+        let v = y.atan2(x);
+        // sin and cos of λ = v + ϖ by the angle-sum rule, from those of v and ϖ.
+        let denominator = 1.0 - e * ce;
+        let (sv, cv) = (y / denominator, x / denominator);
+        let (sp, cp) = self.periapsis_sin_cos;
         OrbitState {
             mean_anomaly_rad: wrap_tau(mean_anomaly_rad),
             true_anomaly_rad: wrap_tau(v),
             distance_factor: 1.0 - e * ce,
             star_longitude_rad: wrap_tau(v + self.periapsis_longitude_rad),
             star_mean_longitude_rad: wrap_tau(mean_anomaly_rad + self.periapsis_longitude_rad),
+            star_longitude_sin_cos: (sv * cp + cv * sp, cv * cp - sv * sp),
         }
     }
 
@@ -199,6 +211,25 @@ impl Orbit {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn star_longitude_sine_and_cosine_agree_with_the_longitude() {
+        for e in [0.0, 0.0167, 0.3, 0.9] {
+            let orbit = Orbit::new(e, 3.0e7, 1.3, 0.2);
+            for k in 0..200 {
+                let s = orbit.state_at_mean_anomaly(k as f64 * 0.07 - 3.0);
+                let (sl, cl) = s.star_longitude_sin_cos;
+                assert!(
+                    (sl - s.star_longitude_rad.sin()).abs() < 1e-14,
+                    "e {e} k {k}"
+                );
+                assert!(
+                    (cl - s.star_longitude_rad.cos()).abs() < 1e-14,
+                    "e {e} k {k}"
+                );
+            }
+        }
+    }
 
     #[test]
     fn kepler_sine_and_cosine_agree_with_the_anomaly() {

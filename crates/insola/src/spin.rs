@@ -79,7 +79,7 @@ impl Spin {
     /// `t_s`, radians in `[0, 2π)`. The planet turns eastwards when prograde and westwards when
     /// retrograde. Whole turns are removed in time first, so the angle stays exact for long runs.
     pub fn sidereal_angle_rad(&self, t_s: f64) -> f64 {
-        let frac = t_s.rem_euclid(self.sidereal_day_s) / self.sidereal_day_s;
+        let frac = crate::angle::cycle_fraction(t_s, self.sidereal_day_s);
         wrap_tau(self.sidereal_angle_at_zero_rad + self.sense.sign() * TAU * frac)
     }
 
