@@ -96,7 +96,7 @@ fn tend_the_farm(
                     farm.sown_on_day = Some(day);
                     farm.degree_days = 0.0;
                     println!(
-                        "{name}: day {day}, {mean_c:.1} °C on average, {:?}: sowing",
+                        "{name}: day {day}, {mean_c:.1} °C on average, {}: sowing",
                         now.season
                     );
                 }

@@ -68,11 +68,23 @@ fn print_notices(mut notices: MessageReader<SkyNotice>, world: Res<ActiveWorld>)
             SkyNoticeKind::MoonRise { moon }
             | SkyNoticeKind::MoonSet { moon }
             | SkyNoticeKind::FullMoon { moon }
-            | SkyNoticeKind::NewMoon { moon } => {
-                let name = planet.spec.moons.get(moon).map_or("?", |m| m.name.as_str());
-                format!("{:?} ({name})", notice.kind)
+            | SkyNoticeKind::NewMoon { moon }
+            | SkyNoticeKind::MoonEclipseBegins { moon }
+            | SkyNoticeKind::MoonEclipseEnds { moon }
+            | SkyNoticeKind::StarEclipseBegins { moon }
+            | SkyNoticeKind::StarEclipseEnds { moon } => {
+                // The notice names the moon by its index; say its name instead.
+                let name = planet
+                    .spec
+                    .moons
+                    .get(moon)
+                    .map_or("a moon", |m| m.name.as_str());
+                notice
+                    .kind
+                    .to_string()
+                    .replacen(&format!("moon {moon}"), name, 1)
             }
-            kind => format!("{kind:?}"),
+            kind => kind.to_string(),
         };
         println!(
             "year {} day {:>3} {}  {what}",

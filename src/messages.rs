@@ -35,6 +35,50 @@ pub enum TwilightBand {
     Astronomical,
 }
 
+impl std::fmt::Display for TwilightBand {
+    /// `civil`, `nautical` or `astronomical`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            TwilightBand::Civil => "civil",
+            TwilightBand::Nautical => "nautical",
+            TwilightBand::Astronomical => "astronomical",
+        })
+    }
+}
+
+impl std::fmt::Display for SkyNoticeKind {
+    /// Plain words, moons by their index in the world file (`moon 0 rises`); put the moon's
+    /// name in yourself from the world's spec.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            SkyNoticeKind::StarRise => write!(f, "star rises"),
+            SkyNoticeKind::StarSet => write!(f, "star sets"),
+            SkyNoticeKind::StarTransit => write!(f, "star at its highest"),
+            SkyNoticeKind::Dawn(band) => write!(f, "dawn: {band} twilight begins"),
+            SkyNoticeKind::Dusk(band) => write!(f, "dusk: {band} twilight ends"),
+            SkyNoticeKind::NewDay { day } => write!(f, "day {day} begins"),
+            SkyNoticeKind::NewYear { year } => write!(f, "year {year} begins"),
+            SkyNoticeKind::SeasonTurn { mark, begins } => write!(f, "{mark}: {begins} begins"),
+            SkyNoticeKind::MoonRise { moon } => write!(f, "moon {moon} rises"),
+            SkyNoticeKind::MoonSet { moon } => write!(f, "moon {moon} sets"),
+            SkyNoticeKind::FullMoon { moon } => write!(f, "moon {moon} is full"),
+            SkyNoticeKind::NewMoon { moon } => write!(f, "moon {moon} is new"),
+            SkyNoticeKind::MoonEclipseBegins { moon } => {
+                write!(f, "moon {moon} enters the planet's shadow")
+            }
+            SkyNoticeKind::MoonEclipseEnds { moon } => {
+                write!(f, "moon {moon} leaves the planet's shadow")
+            }
+            SkyNoticeKind::StarEclipseBegins { moon } => {
+                write!(f, "moon {moon} begins to cover the star")
+            }
+            SkyNoticeKind::StarEclipseEnds { moon } => {
+                write!(f, "moon {moon} no longer covers the star")
+            }
+        }
+    }
+}
+
 impl TwilightBand {
     /// The altitude of the band's lower limit, radians (−6°, −12°, −18°).
     pub fn lower_limit_rad(self) -> f64 {

@@ -127,6 +127,18 @@ pub enum SeasonMark {
     SouthernSolstice,
 }
 
+impl std::fmt::Display for SeasonMark {
+    /// `northward equinox`, `northern solstice`, `southward equinox`, `southern solstice`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            SeasonMark::NorthwardEquinox => "northward equinox",
+            SeasonMark::NorthernSolstice => "northern solstice",
+            SeasonMark::SouthwardEquinox => "southward equinox",
+            SeasonMark::SouthernSolstice => "southern solstice",
+        })
+    }
+}
+
 impl SeasonMark {
     /// All four, in the order of the year from the northward equinox.
     pub const ALL: [SeasonMark; 4] = [
@@ -150,6 +162,23 @@ impl SeasonMark {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn plain_words() {
+        assert_eq!(
+            SeasonMark::NorthernSolstice.to_string(),
+            "northern solstice"
+        );
+        assert_eq!(SeasonOfYear::Autumn.to_string(), "autumn");
+        assert_eq!(ThermalSeason::Steady.to_string(), "steady");
+        let turn = crate::SkyNoticeKind::SeasonTurn {
+            mark: SeasonMark::SouthwardEquinox,
+            begins: SeasonOfYear::Autumn,
+        };
+        assert_eq!(turn.to_string(), "southward equinox: autumn begins");
+        let dawn = crate::SkyNoticeKind::Dawn(crate::TwilightBand::Nautical);
+        assert_eq!(dawn.to_string(), "dawn: nautical twilight begins");
+    }
 
     #[test]
     fn hemispheres_are_half_a_year_apart() {
