@@ -428,6 +428,22 @@ mod tests {
     use insola::WorldSpec;
 
     #[test]
+    fn places_wrap_longitude_and_keep_bad_numbers_out() {
+        let p = SurfacePlace::from_place(Place {
+            latitude_rad: 2.0,
+            longitude_rad: 7.0,
+        });
+        assert!((p.latitude_rad() - std::f64::consts::FRAC_PI_2).abs() < 1e-6);
+        assert!((p.longitude_rad() - (7.0 - std::f64::consts::TAU)).abs() < 1e-6);
+        let bad = SurfacePlace::from_place(Place {
+            latitude_rad: f64::NAN,
+            longitude_rad: f64::INFINITY,
+        });
+        assert_eq!(bad, SurfacePlace::default());
+        assert!(SurfacePlace::from_degrees(f64::NAN, 0.0).is_err());
+    }
+
+    #[test]
     fn fast_path_matches_the_core() {
         let text = r#"(name: "Brindle", star: (temperature_k: 5800, radius_r_sun: 1, luminosity_l_sun: 1),
             orbit: (semi_major_axis_au: 1, eccentricity: 0.05, periapsis_longitude_deg: 40, period_days: 300),
