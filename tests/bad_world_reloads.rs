@@ -4,49 +4,19 @@
 
 mod common;
 
-use std::path::{Path, PathBuf};
-
-use bevy::asset::AssetServer;
 use bevy::prelude::*;
 use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
 use common::assets::*;
 use common::*;
 
-/// The corpus shared with the core's tests: `(file name, expectation, text)`.
-fn corpus() -> Vec<(String, String, String)> {
-    let dir = PathBuf::from(env!("CARGO_MANIFEST_DIR")).join("crates/insola/tests/bad-worlds");
-    let mut files: Vec<(String, String, String)> = std::fs::read_dir(&dir)
-        .expect("corpus folder")
-        .map(|entry| entry.expect("corpus entry").path())
-        .filter(|path| path.to_string_lossy().ends_with(".world.ron"))
-        .map(|path| {
-            let text = std::fs::read_to_string(&path).expect("readable corpus file");
-            let expect = text
-                .lines()
-                .next()
-                .and_then(|l| l.strip_prefix("// expect:"))
-                .expect("first line says what to expect")
-                .trim()
-                .to_string();
-            let name = path.file_name().unwrap().to_string_lossy().into_owned();
-            (name, expect, text)
-        })
-        .collect();
-    files.sort();
-    files
-}
-
-fn reload(app: &mut App, dir: &Path, text: &str) {
-    std::fs::write(dir.join("live.world.ron"), text).unwrap();
-    app.world()
-        .resource::<AssetServer>()
-        .reload("live.world.ron");
-}
+#[path = "../crates/insola/tests/support/bad_world_corpus.rs"]
+mod bad_world_corpus;
+use bad_world_corpus::{Expected, bad_worlds, corpus_dir};
 
 #[test]
 fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_running() {
-    let files = corpus();
+    let files = bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), ""));
     assert!(files.len() >= 30, "the corpus has {} files", files.len());
     let dir = temp_dir("bad-corpus");
     std::fs::write(dir.join("live.world.ron"), BRINDLE).unwrap();
@@ -55,9 +25,10 @@ fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_runnin
     update_until(&mut app, |app| world_name(app).is_some());
     let generation = app.world().resource::<ActiveWorld>().generation();
 
-    for (name, expect, text) in &files {
+    for bad in &files {
+        let name = &bad.name;
         let seen = app.world().resource::<Reports>().rejected.len();
-        reload(&mut app, &dir, text);
+        rewrite_and_reload(&mut app, &dir, "live.world.ron", &bad.text);
         update_until(&mut app, |app| {
             app.world().resource::<Reports>().rejected.len() > seen
         });
@@ -67,16 +38,15 @@ fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_runnin
             !rejected.reason.contains('\n'),
             "{name}: one line, no backtrace"
         );
-        if let Some(field) = expect.strip_prefix("field:") {
-            assert_eq!(rejected.field.as_deref(), Some(field), "{name}: {said}");
-        } else if let Some(unknown) = expect.strip_prefix("unknown:") {
-            assert!(
-                said.contains(unknown),
+        match &bad.expected {
+            Expected::Field(field) => {
+                assert_eq!(rejected.field.as_ref(), Some(field), "{name}: {said}")
+            }
+            Expected::Unknown(unknown) => assert!(
+                said.contains(unknown.as_str()),
                 "{name}: `{said}` does not name `{unknown}`"
-            );
-        } else {
-            assert_eq!(expect, "syntax", "{name}: unreadable expectation");
-            assert!(said.contains("line"), "{name}: `{said}` gives no line");
+            ),
+            Expected::Syntax => assert!(said.contains("line"), "{name}: `{said}` gives no line"),
         }
         assert!(rejected.kept_world, "{name}");
         // Reported once, although Bevy retries a failed reload.
@@ -108,9 +78,10 @@ fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_runnin
     );
 
     // A good file afterwards is taken up.
-    reload(
+    rewrite_and_reload(
         &mut app,
         &dir,
+        "live.world.ron",
         &BRINDLE.replace("\"Brindle\"", "\"Brindle Mended\""),
     );
     update_until(&mut app, |app| {

@@ -53,8 +53,7 @@ fn the_shipped_worlds_load_through_the_asset_loader() {
 #[test]
 fn a_broken_reload_keeps_the_last_good_world() {
     let dir = temp_dir("reload");
-    let path = dir.join("brindle.world.ron");
-    std::fs::write(&path, BRINDLE).unwrap();
+    std::fs::write(dir.join("brindle.world.ron"), BRINDLE).unwrap();
     let mut app = asset_app(&dir, "brindle.world.ron");
     app.world_mut().spawn(StarLight);
     update_until(&mut app, |app| world_name(app).is_some());
@@ -62,14 +61,12 @@ fn a_broken_reload_keeps_the_last_good_world() {
     let generation = app.world().resource::<ActiveWorld>().generation();
 
     // A syntax error: the reload fails, the old world stays, the error is reported.
-    std::fs::write(
-        &path,
-        BRINDLE.replace("eccentricity: 0.02,", "eccentricity: 0.02"),
-    )
-    .unwrap();
-    app.world()
-        .resource::<AssetServer>()
-        .reload("brindle.world.ron");
+    rewrite_and_reload(
+        &mut app,
+        &dir,
+        "brindle.world.ron",
+        &BRINDLE.replace("eccentricity: 0.02,", "eccentricity: 0.02"),
+    );
     update_until(&mut app, |app| {
         !app.world().resource::<Reports>().rejected.is_empty()
     });
@@ -88,24 +85,24 @@ fn a_broken_reload_keeps_the_last_good_world() {
     assert!(app.world().resource::<SkyState>().ready);
 
     // A value out of range is rejected by the loader's validation too.
-    std::fs::write(
-        &path,
-        BRINDLE.replace("obliquity_deg: 23", "obliquity_deg: 230"),
-    )
-    .unwrap();
-    app.world()
-        .resource::<AssetServer>()
-        .reload("brindle.world.ron");
+    rewrite_and_reload(
+        &mut app,
+        &dir,
+        "brindle.world.ron",
+        &BRINDLE.replace("obliquity_deg: 23", "obliquity_deg: 230"),
+    );
     update_until(&mut app, |app| {
         app.world().resource::<Reports>().rejected.len() >= 2
     });
     assert_eq!(world_name(&app).as_deref(), Some("Brindle"));
 
     // A good edit: the new world is active on the next frame after the reload.
-    std::fs::write(&path, BRINDLE.replace("\"Brindle\"", "\"Brindle Revised\"")).unwrap();
-    app.world()
-        .resource::<AssetServer>()
-        .reload("brindle.world.ron");
+    rewrite_and_reload(
+        &mut app,
+        &dir,
+        "brindle.world.ron",
+        &BRINDLE.replace("\"Brindle\"", "\"Brindle Revised\""),
+    );
     update_until(&mut app, |app| {
         world_name(app).as_deref() == Some("Brindle Revised")
     });

@@ -54,6 +54,15 @@ pub fn update_until(app: &mut App, done: impl Fn(&App) -> bool) {
     panic!("condition not reached");
 }
 
+/// Writes `text` to `file` in the asset folder `dir` and asks the asset server to reload it
+/// (the apps do not watch the folder).
+pub fn rewrite_and_reload(app: &mut App, dir: &std::path::Path, file: &str, text: &str) {
+    std::fs::write(dir.join(file), text).unwrap();
+    app.world()
+        .resource::<bevy::asset::AssetServer>()
+        .reload(file.to_string());
+}
+
 pub fn temp_dir(name: &str) -> PathBuf {
     let dir = std::env::temp_dir().join(format!("insola-{name}-{}", std::process::id()));
     std::fs::create_dir_all(&dir).unwrap();

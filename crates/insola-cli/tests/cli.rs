@@ -4,6 +4,10 @@
 use std::path::PathBuf;
 use std::process::{Command, Output};
 
+#[path = "../../insola/tests/support/bad_world_corpus.rs"]
+mod bad_world_corpus;
+use bad_world_corpus::{Expected, bad_worlds, corpus_dir};
+
 fn insola(args: &[&str]) -> Output {
     Command::new(env!("CARGO_BIN_EXE_insola"))
         .args(args)
@@ -223,24 +227,14 @@ fn map_rejects_bad_arguments() {
 #[test]
 fn bad_world_files_exit_2_naming_the_field() {
     // The corpus of broken worlds in the core crate; the first line says what is expected.
-    let dir = concat!(env!("CARGO_MANIFEST_DIR"), "/../insola/tests/bad-worlds");
     let mut n = 0;
-    for entry in std::fs::read_dir(dir).unwrap() {
-        let path = entry.unwrap().path();
-        let text = std::fs::read_to_string(&path).unwrap();
-        let expect = text
-            .lines()
-            .next()
-            .unwrap_or("")
-            .trim_start_matches("// expect:")
-            .trim();
-        let err = fails_cleanly(&["check", path.to_str().unwrap()]);
-        if let Some(field) = expect.strip_prefix("field:") {
-            assert!(err.contains(field), "{}: {err}", path.display());
-        } else if let Some(name) = expect.strip_prefix("unknown:") {
-            assert!(err.contains(name), "{}: {err}", path.display());
-        } else {
-            assert!(err.contains("line"), "{}: {err}", path.display());
+    for bad in bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), "../..")) {
+        let err = fails_cleanly(&["check", bad.path.to_str().unwrap()]);
+        let name = &bad.name;
+        match &bad.expected {
+            Expected::Field(field) => assert!(err.contains(field.as_str()), "{name}: {err}"),
+            Expected::Unknown(unknown) => assert!(err.contains(unknown.as_str()), "{name}: {err}"),
+            Expected::Syntax => assert!(err.contains("line"), "{name}: {err}"),
         }
         n += 1;
     }

@@ -39,19 +39,41 @@ fn demo_forcing() -> AnnualForcing {
     }
 }
 
+/// One model year of the demo forcing, ready to run again and again from its own state.
+struct ModelYear {
+    model: EnergyBalanceModel,
+    state: Vec<f64>,
+    trajectory: Vec<f64>,
+    scratch: Vec<f64>,
+}
+
+impl ModelYear {
+    fn new(spec: &ClimateSpec, forcing: &AnnualForcing) -> ModelYear {
+        let grid = ClimateGrid::new(spec.bands).unwrap();
+        let ins = BandInsolation::from_forcing(forcing, &grid, spec.steps_per_year).unwrap();
+        let model = EnergyBalanceModel::new(spec, ins).unwrap();
+        ModelYear {
+            state: model.steady_annual_mean(),
+            trajectory: vec![0.0; spec.steps_per_year * spec.bands],
+            scratch: vec![0.0; spec.bands],
+            model,
+        }
+    }
+
+    fn run(&mut self) {
+        self.model.run_year(
+            black_box(&mut self.state),
+            &mut self.trajectory,
+            &mut self.scratch,
+        )
+    }
+}
+
 fn bench(c: &mut Criterion) {
     let spec = ClimateSpec::default();
     let forcing = demo_forcing();
-    let grid = ClimateGrid::new(spec.bands).unwrap();
-    let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
-    let model = EnergyBalanceModel::new(&spec, ins).unwrap();
-    let nb = grid.len();
-    let mut state = model.steady_annual_mean();
-    let mut traj = vec![0.0; spec.steps_per_year * nb];
-    let mut scratch = vec![0.0; nb];
-    c.bench_function("climate/one_model_year_90_bands", |b| {
-        b.iter(|| model.run_year(black_box(&mut state), &mut traj, &mut scratch))
-    });
+    let mut year = ModelYear::new(&spec, &forcing);
+    c.bench_function("climate/one_model_year_90_bands", |b| b.iter(|| year.run()));
     // Scaling with the number of bands: one model year (the implicit diffusion step is a
     // tridiagonal solve, so the cost should grow linearly).
     let mut g = c.benchmark_group("climate_scaling/one_model_year");
@@ -60,15 +82,10 @@ fn bench(c: &mut Criterion) {
             bands,
             ..ClimateSpec::default()
         };
-        let grid = ClimateGrid::new(bands).unwrap();
-        let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
-        let model = EnergyBalanceModel::new(&spec, ins).unwrap();
-        let mut state = model.steady_annual_mean();
-        let mut traj = vec![0.0; spec.steps_per_year * bands];
-        let mut scratch = vec![0.0; bands];
+        let mut year = ModelYear::new(&spec, &forcing);
         g.throughput(criterion::Throughput::Elements(bands as u64));
         g.bench_function(criterion::BenchmarkId::from_parameter(bands), |b| {
-            b.iter(|| model.run_year(black_box(&mut state), &mut traj, &mut scratch))
+            b.iter(|| year.run())
         });
     }
     g.finish();
@@ -122,16 +139,9 @@ fn median_s(runs: usize, mut f: impl FnMut()) -> f64 {
 fn summary() {
     let spec = ClimateSpec::default();
     let forcing = demo_forcing();
-    let grid = ClimateGrid::new(spec.bands).unwrap();
-    let ins = BandInsolation::from_forcing(&forcing, &grid, spec.steps_per_year).unwrap();
-    let model = EnergyBalanceModel::new(&spec, ins).unwrap();
-    let nb = grid.len();
-    let mut state = model.steady_annual_mean();
-    let mut traj = vec![0.0; spec.steps_per_year * nb];
-    let mut scratch = vec![0.0; nb];
-    let year = median_s(201, || {
-        model.run_year(black_box(&mut state), &mut traj, &mut scratch)
-    });
+    let mut one_year = ModelYear::new(&spec, &forcing);
+    let nb = spec.bands;
+    let year = median_s(201, || one_year.run());
     println!("\nclimate summary (median of repeated runs, this machine, one thread):");
     println!(
         "  one model year, {nb} bands x {} steps: {:.1} us",

@@ -5,23 +5,12 @@
 
 use insola::{SpecError, WorldSpec};
 
-fn corpus() -> Vec<(String, String, String)> {
-    let dir = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/bad-worlds");
-    let mut out = Vec::new();
-    for entry in std::fs::read_dir(dir).expect("corpus folder") {
-        let path = entry.unwrap().path();
-        let text = std::fs::read_to_string(&path).unwrap();
-        let expect = text
-            .lines()
-            .next()
-            .unwrap_or("")
-            .trim_start_matches("// expect:")
-            .trim()
-            .to_string();
-        out.push((path.display().to_string(), expect, text));
-    }
-    out.sort();
-    out
+#[path = "support/bad_world_corpus.rs"]
+mod bad_world_corpus;
+use bad_world_corpus::{BadWorld, Expected, bad_worlds, corpus_dir};
+
+fn corpus() -> Vec<BadWorld> {
+    bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), "../.."))
 }
 
 #[test]
@@ -31,17 +20,19 @@ fn corpus_has_at_least_thirty_files() {
 
 #[test]
 fn every_broken_world_gives_the_expected_error() {
-    for (path, expect, _) in corpus() {
-        let err = WorldSpec::from_path(&path).expect_err(&path);
+    for bad in corpus() {
+        let path = bad.path.display().to_string();
+        let err = WorldSpec::from_path(&bad.path).expect_err(&path);
         let shown = err.to_string();
-        if let Some(field) = expect.strip_prefix("field:") {
-            assert_eq!(err.field(), Some(field), "{path}: {shown}");
-            assert!(
-                shown.contains(field),
-                "{path}: message must name the field: {shown}"
-            );
-        } else if let Some(name) = expect.strip_prefix("unknown:") {
-            match &err {
+        match &bad.expected {
+            Expected::Field(field) => {
+                assert_eq!(err.field(), Some(field.as_str()), "{path}: {shown}");
+                assert!(
+                    shown.contains(field.as_str()),
+                    "{path}: message must name the field: {shown}"
+                );
+            }
+            Expected::Unknown(name) => match &err {
                 SpecError::UnknownField {
                     field, known, line, ..
                 } => {
@@ -49,17 +40,14 @@ fn every_broken_world_gives_the_expected_error() {
                     assert!(!known.is_empty() && *line >= 1, "{path}: {shown}");
                 }
                 other => panic!("{path}: expected an unknown-field error, got {other}"),
-            }
-        } else if expect == "syntax" {
-            match &err {
+            },
+            Expected::Syntax => match &err {
                 SpecError::Syntax { line, column, .. } => {
                     assert!(*line >= 1 && *column >= 1, "{path}: {shown}");
                     assert!(shown.contains("line"), "{path}: {shown}");
                 }
                 other => panic!("{path}: expected a syntax error, got {other}"),
-            }
-        } else {
-            panic!("{path}: unreadable expectation `{expect}`");
+            },
         }
     }
 }
