@@ -10,7 +10,7 @@ use bevy::color::LinearRgba;
 use bevy::math::DVec3;
 use bevy::prelude::*;
 use insola::Planet;
-use insola::lighting::{BodyLight, LightMode, LightingState};
+use insola::lighting::{BodyLight, LightingState};
 
 use crate::clock::WorldClock;
 use crate::season::SeasonOfYear;
@@ -199,18 +199,6 @@ pub struct SkyState {
     pub lighting: Option<LightingState>,
 }
 
-/// Star, sky and moons on a horizontal surface, lux.
-fn ground_illuminance_lux(lighting: &LightingState) -> f64 {
-    let on_ground = |light: &BodyLight| light.illuminance_lux * light.direction_enu.z.max(0.0);
-    on_ground(&lighting.star)
-        + lighting.sky.illuminance_lux
-        + lighting
-            .moons
-            .iter()
-            .map(|m| on_ground(&m.light))
-            .sum::<f64>()
-}
-
 impl SkyState {
     /// Computes the sky state from the core for `t_s` and the settings' reference place.
     pub fn compute(planet: &Planet, t_s: f64, settings: &InsolaSettings) -> SkyState {
@@ -231,12 +219,7 @@ impl SkyState {
             .collect();
         // The meter reads the light at the ground, also when the lights carry the light above
         // the air (the engine's atmosphere then dims them on their way to the scene).
-        let horizontal = match lighting.mode {
-            LightMode::Ground => ground_illuminance_lux(&lighting),
-            LightMode::TopOfAtmosphere => {
-                ground_illuminance_lux(&planet.lighting(t_s, place, LightMode::Ground))
-            }
-        };
+        let horizontal = lighting.ground_horizontal_illuminance_lux;
         let date = planet.date_at(t_s);
         let ecliptic_longitude = planet.star_instant(t_s).ecliptic_longitude_rad;
         let [r, g, b] = lighting.sky.color_linear_rgb;

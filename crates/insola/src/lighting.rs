@@ -64,6 +64,9 @@ pub struct MoonLighting {
     pub illuminated_fraction: f64,
     /// Fraction of the moon's light removed by the planet's shadow (lunar eclipse), 0–1.
     pub eclipse_fraction: f64,
+    /// The moon's light at the ground, after the atmosphere, lux (in
+    /// [`LightMode::Ground`] equal to `light.illuminance_lux`).
+    pub ground_illuminance_lux: f64,
 }
 
 /// Everything that lights a scene at one instant and place.
@@ -86,6 +89,9 @@ pub struct LightingState {
     pub moons: Vec<MoonLighting>,
     /// Day, civil, nautical or astronomical twilight, or night.
     pub twilight: TwilightPhase,
+    /// What a light meter lying on the ground reads: star, sky and moons on a horizontal
+    /// surface at the ground, after the atmosphere, lux — in either mode (for exposure).
+    pub ground_horizontal_illuminance_lux: f64,
 }
 
 impl Planet {
@@ -115,6 +121,21 @@ impl Planet {
         };
         let sky = model.sky(pos.altitude_rad, instant.toa_flux_w_m2 * (1.0 - eclipse));
         let moons = self.moon_lighting(&instant, place, mode);
+        let ground_star_lux = match mode {
+            LightMode::Ground => beam.illuminance_lux,
+            LightMode::TopOfAtmosphere => {
+                model
+                    .direct_beam(pos.altitude_rad, instant.toa_flux_w_m2)
+                    .illuminance_lux
+            }
+        } * (1.0 - eclipse);
+        let on_ground = |lux: f64, direction: DVec3| lux * direction.z.max(0.0);
+        let ground_horizontal = on_ground(ground_star_lux, pos.direction_enu)
+            + sky.total_lux()
+            + moons
+                .iter()
+                .map(|m| on_ground(m.ground_illuminance_lux, m.light.direction_enu))
+                .sum::<f64>();
         LightingState {
             t_s,
             mode,
@@ -138,6 +159,7 @@ impl Planet {
                 pos.altitude_rad,
                 self.standard_rise_altitude_rad(),
             ),
+            ground_horizontal_illuminance_lux: ground_horizontal,
         }
     }
 }

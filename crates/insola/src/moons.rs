@@ -387,33 +387,30 @@ impl Planet {
                         view.phase_angle_rad,
                     )
                 };
+                // Moonlight is reflected starlight: at the ground it has the same extinction
+                // as the star's beam at the moon's altitude.
+                let beam = model.direct_beam(view.altitude_rad, 1.0);
+                let toa = model.top_of_atmosphere(1.0);
+                let ground_lux =
+                    toa_lux * beam.illuminance_lux / toa.illuminance_lux.max(f64::MIN_POSITIVE);
                 let (lux, colour) = match mode {
                     LightMode::TopOfAtmosphere => {
-                        let toa = model.top_of_atmosphere(1.0);
                         let fade = crate::light::disc_fraction_above_horizon(
                             model.apparent_altitude_rad(view.altitude_rad),
                             view.angular_radius_rad,
                         );
                         (toa_lux * fade, toa.colour)
                     }
-                    LightMode::Ground => {
-                        // Moonlight is reflected starlight: the same extinction as the star's
-                        // beam at the moon's altitude.
-                        let beam = model.direct_beam(view.altitude_rad, 1.0);
-                        let toa = model
-                            .top_of_atmosphere(1.0)
-                            .illuminance_lux
-                            .max(f64::MIN_POSITIVE);
-                        (toa_lux * beam.illuminance_lux / toa, beam.colour)
-                    }
+                    LightMode::Ground => (ground_lux, beam.colour),
                 };
+                let finite = |x: f64| if x.is_finite() { x.max(0.0) } else { 0.0 };
                 Some(MoonLighting {
                     name: spec.name.clone(),
                     light: BodyLight {
                         direction_enu: view.direction_enu,
                         altitude_rad: view.altitude_rad,
                         azimuth_rad: view.azimuth_rad,
-                        illuminance_lux: if lux.is_finite() { lux.max(0.0) } else { 0.0 },
+                        illuminance_lux: finite(lux),
                         color_linear_rgb: colour.linear_srgb,
                         cct_k: colour.cct_k,
                         angular_radius_rad: view.angular_radius_rad,
@@ -421,6 +418,7 @@ impl Planet {
                     phase_angle_rad: view.phase_angle_rad,
                     illuminated_fraction: illuminated_fraction(view.phase_angle_rad),
                     eclipse_fraction: view.shadow_fraction,
+                    ground_illuminance_lux: finite(ground_lux),
                 })
             })
             .collect()

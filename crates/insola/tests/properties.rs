@@ -65,6 +65,15 @@ proptest! {
         prop_assert!(top.star.illuminance_lux * (1.0 + 1e-12) + 1e-9 >= l.star.illuminance_lux, "top {} ground {} alt {}", top.star.illuminance_lux, l.star.illuminance_lux, l.star.altitude_rad);
         let q = p.daily_mean_insolation_w_m2(t, place.latitude_rad);
         prop_assert!(q.is_finite() && q >= 0.0);
+        // The meter reading at the ground is the same whichever mode the lights are in, and in
+        // ground mode it is the sum of the horizontal parts.
+        let meter = l.ground_horizontal_illuminance_lux;
+        prop_assert!(meter.is_finite() && meter >= 0.0);
+        prop_assert!((top.ground_horizontal_illuminance_lux - meter).abs() <= 1e-9 * meter.max(1.0));
+        let sum = l.star.illuminance_lux * l.star.direction_enu.z.max(0.0)
+            + l.sky.illuminance_lux
+            + l.moons.iter().map(|m| m.light.illuminance_lux * m.light.direction_enu.z.max(0.0)).sum::<f64>();
+        prop_assert!((sum - meter).abs() <= 1e-9 * meter.max(1.0));
     }
 
     #[test]
