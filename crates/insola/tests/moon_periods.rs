@@ -18,8 +18,8 @@ const QUILLMERE: &str = r#"(
     spin: (obliquity_deg: 15, solar_day_hours: 30),
     body: (radius_km: 12000, mass_earth: 10, star_mass_m_sun: 1.8),
     moons: [
-        (name: "Pip", radius_km: 200, distance_km: 20000, period_days: 0.103),
-        (name: "Mavel", radius_km: 1500, distance_km: 400000, period_days: 9.2, inclination_deg: 4),
+        (name: "Skerrin", radius_km: 200, distance_km: 20000, period_days: 0.103),
+        (name: "Orrisk", radius_km: 1500, distance_km: 400000, period_days: 9.2, inclination_deg: 4),
         (name: "Oldwane", radius_km: 2500, distance_km: 7500000, period_days: 748, inclination_deg: 2),
     ],
 )"#;
@@ -95,7 +95,7 @@ fn rises_and_sets_alternate_at_the_synodic_day_rate() {
 
 #[test]
 fn a_moon_faster_than_the_planet_turns_rises_in_the_west() {
-    // Pip goes round in 2.5 hours, the planet in 30: Pip overtakes the sky's turning and so
+    // Skerrin goes round in 2.5 hours, the planet in 30: Skerrin overtakes the sky's turning and so
     // crosses it from west to east (as Mars's moon Phobos does; from memory).
     let p = quillmere();
     let place = Place::from_degrees(0.0, 0.0).unwrap();
@@ -115,11 +115,11 @@ fn a_moon_faster_than_the_planet_turns_rises_in_the_west() {
         // Azimuth from north through east: the western half is 180°–360°.
         assert!(
             v.azimuth_rad.sin() < -0.9,
-            "Pip rose at azimuth {}°",
+            "Skerrin rose at azimuth {}°",
             v.azimuth_rad.to_degrees()
         );
     }
-    // Mavel (9.2 days) is slower than the sky and rises in the east.
+    // Orrisk (9.2 days) is slower than the sky and rises in the east.
     out.clear();
     p.moon_altitude_crossings_into(
         1,
@@ -133,7 +133,7 @@ fn a_moon_faster_than_the_planet_turns_rises_in_the_west() {
         let v = p.moon_view(&p.star_instant(c.t_s), 1, place).unwrap();
         assert!(
             v.azimuth_rad.sin() > 0.9,
-            "Mavel rose at azimuth {}°",
+            "Orrisk rose at azimuth {}°",
             v.azimuth_rad.to_degrees()
         );
     }
@@ -153,7 +153,7 @@ fn phases_follow_the_synodic_month_for_hours_days_and_years() {
         };
         // Full at time zero (the default phase), new half a synodic month later, full again
         // after one. Allowances: the phase angle is seen from the place, so parallax moves it
-        // by up to the planet's angular radius seen from the moon (largest for Pip); an
+        // by up to the planet's angular radius seen from the moon (largest for Skerrin); an
         // inclined moon passes beside the star's line by up to its inclination; and the
         // synodic month is a mean, while the star's longitude runs ahead or behind its mean by
         // up to 2e (the equation of the centre's first term; standard).
