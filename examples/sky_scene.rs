@@ -661,7 +661,7 @@ fn scene_keys(
     if keys.just_pressed(KeyCode::KeyW)
         && let Some(handles) = handles
     {
-        let name = planet.spec.name.clone();
+        let name = planet.spec().name.clone();
         let current = handles
             .0
             .iter()

@@ -49,7 +49,7 @@ impl ClimateModel {
             Err(ClimateError::NotConverged { last, years, .. }) => {
                 warn!(
                     "Insola: the climate of `{}` did not settle to a repeating year in {years} years; using the last year computed",
-                    planet.spec.name
+                    planet.spec().name
                 );
                 last
             }
@@ -316,7 +316,7 @@ pub fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClima
         let g = *task_generation;
         climate.task = None;
         if g == generation {
-            climate.install(built, g, &planet.spec.name);
+            climate.install(built, g, &planet.spec().name);
         }
     }
     let up_to_date =
@@ -334,7 +334,11 @@ pub fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClima
             ))
         }
         // No task pools (an app without `TaskPoolPlugin`): compute in place.
-        None => climate.install(ClimateModel::build(&planet), generation, &planet.spec.name),
+        None => climate.install(
+            ClimateModel::build(&planet),
+            generation,
+            &planet.spec().name,
+        ),
     }
 }
 

@@ -229,7 +229,7 @@ impl StarFrame {
         let i = planet.star_instant(t_s);
         let h0 = (i.sidereal_angle_rad - i.right_ascension_rad).rem_euclid(std::f64::consts::TAU);
         let (sin_h0, cos_h0) = h0.sin_cos();
-        let sense = planet.spin.sense.sign();
+        let sense = planet.spin().sense.sign();
         StarFrame {
             t_s,
             sin_dec: i.sin_declination as f32,

@@ -89,7 +89,7 @@ pub struct SkyBody {
 
 impl SkyBody {
     fn from_core(body: &BodyLight, compass: &SceneCompass, rise_altitude_rad: f64) -> SkyBody {
-        let [r, g, b] = body.color_linear_rgb;
+        let [r, g, b] = body.colour_linear_srgb;
         SkyBody {
             direction: compass.to_scene(body.direction_enu).normalize_or_zero(),
             direction_enu: body.direction_enu,
@@ -222,7 +222,7 @@ impl SkyState {
         let horizontal = lighting.ground_horizontal_illuminance_lux;
         let date = planet.date_at(t_s);
         let ecliptic_longitude = planet.star_instant(t_s).ecliptic_longitude_rad;
-        let [r, g, b] = lighting.sky.color_linear_rgb;
+        let [r, g, b] = lighting.sky.colour_linear_srgb;
         SkyState {
             ready: true,
             world_time_s: t_s,

@@ -176,7 +176,7 @@ impl ActiveWorld {
 
     fn reject(&mut self, source: String, reason: String, field: Option<String>) {
         let kept = match self.planet() {
-            Some(p) => format!("keeping world `{}`", p.spec.name),
+            Some(p) => format!("keeping world `{}`", p.spec().name),
             None => "no world loaded yet".to_string(),
         };
         error!("Insola: world rejected ({source}): {reason}; {kept}");
@@ -265,7 +265,7 @@ pub fn report_world_changes(
     let reports = core::mem::take(&mut world.pending);
     let name = world
         .planet()
-        .map(|p| p.spec.name.clone())
+        .map(|p| p.spec().name.clone())
         .unwrap_or_default();
     let generation = world.generation;
     for report in reports {

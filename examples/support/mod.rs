@@ -211,7 +211,7 @@ pub fn orbit_camera_controls(
 /// terms scaled by the surface pressure and the world's Rayleigh factor, and the haze by its
 /// turbidity. `None` for an airless world.
 pub fn scattering_medium(planet: &Planet) -> Option<ScatteringMedium> {
-    let air = &planet.atmosphere;
+    let air = &planet.atmosphere();
     if air.is_airless() {
         return None;
     }
@@ -256,7 +256,7 @@ pub fn follow_world_air(
         commands.entity(entity).despawn();
     }
     if let Some(medium) = scattering_medium(planet) {
-        let radius_m = (planet.body.radius_km * 1000.0) as f32;
+        let radius_m = (planet.body().radius_km * 1000.0) as f32;
         commands.spawn((
             Atmosphere {
                 inner_radius: radius_m,
@@ -357,7 +357,7 @@ pub fn status_text(
             None => "loading the world...".to_string(),
         };
     };
-    let name = &planet.spec.name;
+    let name = &planet.spec().name;
     let d = &sky.date;
     let date = match &d.month_name {
         Some(month) => format!("year {} {} {}", d.year, d.day_of_month, month),

@@ -59,7 +59,7 @@ fn world_tuner_window(
     let Some(planet) = world.planet_arc() else {
         return Ok(());
     };
-    let mut spec = planet.spec.clone();
+    let mut spec = planet.spec().clone();
     let mut changed = false;
     let place = settings.reference_place_clamped();
     let t = clock.elapsed_s();
@@ -200,7 +200,7 @@ fn world_tuner_window(
             ui.horizontal(|ui| {
                 ui.text_edit_singleline(&mut state.file_name);
                 if ui.button("save world").clicked() {
-                    state.saved = Some(save_world(&planet.spec, &state.file_name));
+                    state.saved = Some(save_world(&planet.spec(), &state.file_name));
                 }
             });
             if let Some(message) = &state.saved {

@@ -12,6 +12,7 @@ pub mod insolation;
 pub mod light;
 pub mod lighting;
 pub mod moons;
+pub mod occlusion;
 pub mod orbit;
 mod planet;
 pub mod seasons;

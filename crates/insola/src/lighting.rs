@@ -35,11 +35,16 @@ pub struct BodyLight {
     /// Illuminance on a surface facing the body, lux (0 when below the horizon).
     pub illuminance_lux: f64,
     /// Colour of the light, linear sRGB with the largest channel 1.
-    pub color_linear_rgb: [f64; 3],
+    pub colour_linear_srgb: [f64; 3],
     /// Correlated colour temperature of the light, kelvin.
     pub cct_k: f64,
     /// Angular radius of the disc, radians.
     pub angular_radius_rad: f64,
+    /// `true` while the body is up: its centre at or above its standard rise altitude (the
+    /// upper limb on the refracted horizon; [`Planet::standard_rise_altitude_rad`],
+    /// [`Planet::moon_rise_altitude_rad`]). Rise and set events fall exactly where this
+    /// changes, and renderers switch the body's light by it.
+    pub is_up: bool,
 }
 
 /// Diffuse light of the whole sky dome.
@@ -48,7 +53,7 @@ pub struct SkyLight {
     /// Illuminance on a horizontal surface from the sky (not the star's beam), lux.
     pub illuminance_lux: f64,
     /// Colour, linear sRGB with the largest channel 1.
-    pub color_linear_rgb: [f64; 3],
+    pub colour_linear_srgb: [f64; 3],
 }
 
 /// One moon as seen from the observer.
@@ -79,8 +84,11 @@ pub struct LightingState {
     /// The star.
     pub star: BodyLight,
     /// Fraction of the star's disc covered by moons (solar eclipse), 0–1; already applied to
-    /// `star.illuminance_lux`.
+    /// `star.illuminance_lux`, the sky light and `toa_insolation_w_m2` (see
+    /// [`crate::occlusion`]).
     pub star_eclipse_fraction: f64,
+    /// The occluder hiding the most of the star, if any.
+    pub star_occluded_by: Option<crate::occlusion::Occluder>,
     /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
     pub toa_insolation_w_m2: f64,
     /// Diffuse sky light (always as at the ground: it is the atmosphere's own light).
@@ -104,16 +112,17 @@ impl Planet {
         let instant = self.star_instant(t_s);
         let pos = self.star_position_at(&instant, place);
         let model = self.light_model();
-        let eclipse = self.star_eclipse_fraction(&instant, place);
+        let occlusion = self.star_occlusion(&instant, place);
+        let eclipse = occlusion.hidden_fraction;
         let beam = match mode {
             LightMode::Ground => model.direct_beam(pos.altitude_rad, instant.toa_flux_w_m2),
             LightMode::TopOfAtmosphere => {
                 let mut b = model.top_of_atmosphere(instant.toa_flux_w_m2);
-                // Fade across the star's own (refracted) disc so the light does not switch off
-                // in one frame, exactly as the ground beam does.
-                let apparent = model.apparent_altitude_rad(pos.altitude_rad);
-                b.illuminance_lux *= crate::light::disc_fraction_above_horizon(
-                    apparent,
+                // Fade across the star's own disc above its rise altitude so the light does not
+                // switch off in one frame, exactly as the ground beam does.
+                b.illuminance_lux *= crate::light::disc_fraction_above_rise(
+                    pos.altitude_rad,
+                    self.standard_rise_altitude_rad(),
                     model.star_angular_radius_rad(),
                 );
                 b
@@ -144,15 +153,17 @@ impl Planet {
                 altitude_rad: pos.altitude_rad,
                 azimuth_rad: pos.azimuth_rad,
                 illuminance_lux: beam.illuminance_lux * (1.0 - eclipse),
-                color_linear_rgb: beam.colour.linear_srgb,
+                colour_linear_srgb: beam.colour.linear_srgb,
                 cct_k: beam.colour.cct_k,
                 angular_radius_rad: instant.angular_radius_rad,
+                is_up: pos.altitude_rad > self.standard_rise_altitude_rad(),
             },
             star_eclipse_fraction: eclipse,
-            toa_insolation_w_m2: pos.toa_insolation_w_m2 * (1.0 - eclipse),
+            star_occluded_by: occlusion.by,
+            toa_insolation_w_m2: pos.toa_insolation_w_m2 * occlusion.transmitted_fraction(),
             sky: SkyLight {
                 illuminance_lux: sky.total_lux(),
-                color_linear_rgb: sky.colour.linear_srgb,
+                colour_linear_srgb: sky.colour.linear_srgb,
             },
             moons,
             twilight: TwilightPhase::from_altitude(

@@ -9,11 +9,10 @@ use crate::constants::{
 };
 use crate::error::SpecError;
 use crate::light::{AtmosphereSpec, StarLightModel};
-use crate::moons::{BodySpec, MoonOrbit};
+use crate::moons::MoonOrbit;
 use crate::orbit::Orbit;
 use crate::spin::{Spin, SpinSense, sidereal_from_solar_day, solar_from_sidereal_day};
-use crate::world::{WorldSpec, parse_utc_unix_s};
-use std::sync::OnceLock;
+use crate::world::{BodySpec, WorldSpec, parse_utc_unix_s};
 
 /// A world ready for sky queries: orbit, spin and star, with every derived constant computed.
 ///
@@ -36,30 +35,18 @@ use std::sync::OnceLock;
 /// ```
 #[derive(Debug, Clone)]
 pub struct Planet {
-    /// The world description this planet was built from.
-    pub spec: WorldSpec,
-    /// The orbit.
-    pub orbit: Orbit,
-    /// The rotation.
-    pub spin: Spin,
-    /// Stellar flux at the mean distance (semi-major axis), W m⁻².
-    pub flux_at_mean_distance_w_m2: f64,
-    /// Semi-major axis, metres.
-    pub semi_major_axis_m: f64,
-    /// Star radius, metres.
-    pub star_radius_m: f64,
-    /// Refraction lifting the star at the horizon, radians (0 without air or refraction).
-    pub horizon_refraction_rad: f64,
-    /// Seconds since the Unix epoch of time zero, for reference worlds tied to UTC.
-    pub utc_at_zero_unix_s: Option<f64>,
-    /// The atmosphere in effect (the world's, or the Earth-like default).
-    pub atmosphere: AtmosphereSpec,
-    /// The planet's size and mass (the world's, or Earth-like defaults).
-    pub body: BodySpec,
-    /// Precomputed moon orbits, in world-file order.
-    pub(crate) moon_orbits: Vec<MoonOrbit>,
-    /// Spectral light model, built on first use (it takes milliseconds).
-    light_model: OnceLock<StarLightModel>,
+    spec: WorldSpec,
+    orbit: Orbit,
+    spin: Spin,
+    flux_at_mean_distance_w_m2: f64,
+    semi_major_axis_m: f64,
+    star_radius_m: f64,
+    horizon_refraction_rad: f64,
+    utc_at_zero_unix_s: Option<f64>,
+    atmosphere: AtmosphereSpec,
+    body: BodySpec,
+    moon_orbits: Vec<MoonOrbit>,
+    light_model: StarLightModel,
 }
 
 impl Planet {
@@ -118,7 +105,12 @@ impl Planet {
             (None, Some(l)) => {
                 flux_at_distance_w_m2(l * SUN_LUMINOSITY_W, spec.orbit.semi_major_axis_au)
             }
-            (None, None) => unreachable_flux(),
+            (None, None) => {
+                return Err(SpecError::inconsistent(
+                    "star.luminosity_l_sun",
+                    "give exactly one of luminosity_l_sun and flux_at_mean_distance_w_m2",
+                ));
+            }
         };
         let atmosphere = spec.atmosphere.unwrap_or_default();
         // Earth's 34′ at the horizon, scaled with the air's density and refractivity (see
@@ -130,13 +122,28 @@ impl Planet {
             }
             None => None,
         };
+        let semi_major_axis_m = spec.orbit.semi_major_axis_au * AU_M;
+        let star_radius_m = spec.star.radius_r_sun * SUN_RADIUS_M;
+        // The spectral light model takes milliseconds; building it here means every query
+        // after construction is cheap and a world it cannot describe is rejected up front.
+        let star_angular_radius_rad = (star_radius_m / semi_major_axis_m).min(0.5).asin();
+        let light_model = StarLightModel::new(spec.star.temperature_k, &atmosphere)
+            .and_then(|m| m.with_star_angular_radius(star_angular_radius_rad))
+            .map_err(|e| match e.field() {
+                Some("star.angular_radius_rad") => SpecError::out_of_range(
+                    "star.radius_r_sun",
+                    spec.star.radius_r_sun,
+                    "a star disc seen from the orbit at most 45° in radius",
+                ),
+                _ => e,
+            })?;
         Ok(Planet {
             spec: spec.clone(),
             orbit,
             spin,
             flux_at_mean_distance_w_m2: flux,
-            semi_major_axis_m: spec.orbit.semi_major_axis_au * AU_M,
-            star_radius_m: spec.star.radius_r_sun * SUN_RADIUS_M,
+            semi_major_axis_m,
+            star_radius_m,
             horizon_refraction_rad,
             utc_at_zero_unix_s,
             atmosphere,
@@ -147,28 +154,71 @@ impl Planet {
                 .enumerate()
                 .map(|(i, m)| MoonOrbit::new(i, m, spec.epoch.star_longitude_deg.to_radians()))
                 .collect(),
-            light_model: OnceLock::new(),
+            light_model,
         })
     }
 
-    /// The spectral light model of this star and atmosphere (built on first call).
+    /// The world description this planet was built from.
+    pub fn spec(&self) -> &WorldSpec {
+        &self.spec
+    }
+
+    /// The orbit around the star.
+    pub fn orbit(&self) -> &Orbit {
+        &self.orbit
+    }
+
+    /// The rotation.
+    pub fn spin(&self) -> &Spin {
+        &self.spin
+    }
+
+    /// Stellar flux at the mean distance (the semi-major axis), W m⁻².
+    pub fn flux_at_mean_distance_w_m2(&self) -> f64 {
+        self.flux_at_mean_distance_w_m2
+    }
+
+    /// Semi-major axis of the orbit, metres.
+    pub fn semi_major_axis_m(&self) -> f64 {
+        self.semi_major_axis_m
+    }
+
+    /// Radius of the star, metres.
+    pub fn star_radius_m(&self) -> f64 {
+        self.star_radius_m
+    }
+
+    /// Refraction lifting a body at the horizon, radians (0 without air or refraction): Earth's
+    /// 34′ scaled with the air's density and refractivity.
+    pub fn horizon_refraction_rad(&self) -> f64 {
+        self.horizon_refraction_rad
+    }
+
+    /// Seconds since the Unix epoch of time zero, for reference worlds tied to UTC.
+    pub fn utc_at_zero_unix_s(&self) -> Option<f64> {
+        self.utc_at_zero_unix_s
+    }
+
+    /// The atmosphere in effect: the world file's, or the documented default of
+    /// [`WorldSpec::atmosphere`] (a clear Earth-like sky) when the section is absent.
+    pub fn atmosphere(&self) -> &AtmosphereSpec {
+        &self.atmosphere
+    }
+
+    /// The planet's size and mass: the world file's, or the documented Earth-like default of
+    /// [`WorldSpec::body`] when the section is absent.
+    pub fn body(&self) -> &BodySpec {
+        &self.body
+    }
+
+    /// Precomputed orbits of the world's moons, in world-file order.
+    pub fn moon_orbits(&self) -> &[MoonOrbit] {
+        &self.moon_orbits
+    }
+
+    /// The spectral light model of this star and atmosphere (built with the planet).
     pub fn light_model(&self) -> &StarLightModel {
-        self.light_model.get_or_init(|| {
-            let radius = (self.star_radius_m / self.semi_major_axis_m)
-                .min(0.5)
-                .asin();
-            // Validation keeps the temperature inside the model's range; should it ever fail,
-            // fall back to the star's temperature clamped into range rather than panic.
-            StarLightModel::new(self.spec.star.temperature_k, &self.atmosphere)
-                .and_then(|m| m.with_star_angular_radius(radius))
-                .or_else(|_| {
-                    StarLightModel::new(
-                        self.spec.star.temperature_k.clamp(1000.0, 40_000.0),
-                        &AtmosphereSpec::default(),
-                    )
-                })
-                .unwrap_or_else(|_| fallback_light_model())
-        })
+        &self.light_model
     }
 
     /// The year (orbital period) in seconds.
@@ -231,25 +281,11 @@ impl Planet {
         (day - zero_fraction - self.spin.sense.sign() * lon_rad / TAU) * self.day_s()
     }
 
-    /// Standard altitude of rise and set for the star's centre, radians: minus the horizon
-    /// refraction and the star's angular radius at the mean distance (Earth: −0.833°).
+    /// Standard altitude of rise and set for the star's centre, radians: the geometric
+    /// altitude at which the upper limb of the star's disc (at the mean distance) touches the
+    /// refracted horizon (Earth: −0.84°). The one definition used by the events, the twilight
+    /// phase, the sky light and the "is up" flag of the star's light.
     pub fn standard_rise_altitude_rad(&self) -> f64 {
-        -(self.horizon_refraction_rad + (self.star_radius_m / self.semi_major_axis_m).asin())
+        self.light_model.rise_altitude_rad()
     }
-}
-
-fn fallback_light_model() -> StarLightModel {
-    // A Sun-like star in the default air is always within range.
-    match StarLightModel::new(
-        crate::constants::SUN_TEMPERATURE_K,
-        &AtmosphereSpec::default(),
-    ) {
-        Ok(m) => m,
-        Err(_) => unreachable!("the default light model is valid"),
-    }
-}
-
-fn unreachable_flux() -> f64 {
-    // Validation guarantees one of the two; keep a harmless value rather than panic.
-    crate::constants::SOLAR_CONSTANT_W_M2
 }

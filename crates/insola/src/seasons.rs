@@ -53,7 +53,7 @@ impl Planet {
     /// The next equinoxes and solstices at or after `after_s`. Exact (Kepler's equation
     /// inverted), no search.
     pub fn season_marks_after(&self, after_s: f64) -> SeasonMarks {
-        let at = |k: f64| self.orbit.time_of_star_longitude(k * FRAC_PI_2, after_s);
+        let at = |k: f64| self.orbit().time_of_star_longitude(k * FRAC_PI_2, after_s);
         SeasonMarks {
             northward_equinox_s: at(0.0),
             northern_solstice_s: at(1.0),
@@ -64,7 +64,7 @@ impl Planet {
 
     /// Lengths of the four northern seasons.
     pub fn season_lengths(&self) -> SeasonLengths {
-        let t = |k: f64| self.orbit.time_of_star_longitude(k * FRAC_PI_2, 0.0);
+        let t = |k: f64| self.orbit().time_of_star_longitude(k * FRAC_PI_2, 0.0);
         let year = self.year_s();
         let span = |a: f64, b: f64| (b - a).rem_euclid(year);
         let (e0, s1, e2, s3) = (t(0.0), t(1.0), t(2.0), t(3.0));
@@ -78,7 +78,7 @@ impl Planet {
 
     /// Latitudes of the tropics and polar circles.
     pub fn zone_latitudes(&self) -> ZoneLatitudes {
-        let tilt = self.spin.tilt_rad.to_degrees();
+        let tilt = self.spin().tilt_rad.to_degrees();
         ZoneLatitudes {
             tropic_lat_deg: tilt,
             polar_circle_lat_deg: 90.0 - tilt,

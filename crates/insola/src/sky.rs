@@ -100,17 +100,17 @@ fn small_asin(x: f64) -> f64 {
 impl Planet {
     /// The place-independent state of the star at world time `t_s` (seconds since zero).
     pub fn star_instant(&self, t_s: f64) -> StarInstant {
-        let o = self.orbit.state_at(t_s);
+        let o = self.orbit().state_at(t_s);
         // Equatorial coordinates from sin/cos of λ with the tilt's sine and cosine precomputed
         // (same formula as `frames::equatorial_from_ecliptic_longitude`).
         let (sl, cl) = o.star_longitude_sin_cos;
-        let (se, ce) = self.spin.tilt_sin_cos;
+        let (se, ce) = self.spin().tilt_sin_cos;
         let ra = wrap_tau((ce * sl).atan2(cl));
         let sin_dec = (se * sl).clamp(-1.0, 1.0);
         let cos_dec = (1.0 - sin_dec * sin_dec).sqrt();
         let dec = sin_dec.asin();
-        let eot = wrap_pi(self.spin.sense.sign() * (o.star_mean_longitude_rad - ra));
-        let distance_m = self.semi_major_axis_m * o.distance_factor;
+        let eot = wrap_pi(self.spin().sense.sign() * (o.star_mean_longitude_rad - ra));
+        let distance_m = self.semi_major_axis_m() * o.distance_factor;
         StarInstant {
             t_s,
             ecliptic_longitude_rad: o.star_longitude_rad,
@@ -118,12 +118,12 @@ impl Planet {
             declination_rad: dec,
             right_ascension_rad: ra,
             distance_factor: o.distance_factor,
-            distance_au: self.spec.orbit.semi_major_axis_au * o.distance_factor,
-            sidereal_angle_rad: self.spin.sidereal_angle_rad(t_s),
+            distance_au: self.spec().orbit.semi_major_axis_au * o.distance_factor,
+            sidereal_angle_rad: self.spin().sidereal_angle_rad(t_s),
             equation_of_time_rad: eot,
-            toa_flux_w_m2: self.flux_at_mean_distance_w_m2
+            toa_flux_w_m2: self.flux_at_mean_distance_w_m2()
                 / (o.distance_factor * o.distance_factor),
-            angular_radius_rad: small_asin((self.star_radius_m / distance_m).min(1.0)),
+            angular_radius_rad: small_asin((self.star_radius_m() / distance_m).min(1.0)),
             sin_declination: sin_dec,
             cos_declination: cos_dec,
         }
@@ -141,7 +141,7 @@ impl Planet {
         StarPosition {
             altitude_rad: alt,
             azimuth_rad: az,
-            hour_angle_rad: wrap_pi(self.spin.sense.sign() * h_geo),
+            hour_angle_rad: wrap_pi(self.spin().sense.sign() * h_geo),
             direction_enu: enu,
             toa_insolation_w_m2: instant.toa_flux_w_m2 * enu.z.max(0.0),
         }
@@ -155,10 +155,10 @@ impl Planet {
     /// Equation of time at `t_s` in minutes of the world's clock (apparent minus mean solar
     /// time; sundial ahead of the clock when positive). Zero on a tidally locked world.
     pub fn equation_of_time_min(&self, t_s: f64) -> f64 {
-        if self.spin.is_tidally_locked() {
+        if self.spin().is_tidally_locked() {
             return 0.0;
         }
-        self.star_instant(t_s).equation_of_time_rad / (2.0 * PI) * self.spin.solar_day_s / 60.0
+        self.star_instant(t_s).equation_of_time_rad / (2.0 * PI) * self.spin().solar_day_s / 60.0
     }
 
     /// Daily-mean top-of-atmosphere insolation at `latitude_rad` on the day containing `t_s`,
@@ -166,7 +166,7 @@ impl Planet {
     pub fn daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
         let i = self.star_instant(t_s);
         insolation::daily_mean_w_m2(
-            self.flux_at_mean_distance_w_m2,
+            self.flux_at_mean_distance_w_m2(),
             latitude_rad,
             i.declination_rad,
             i.distance_factor,

@@ -26,7 +26,7 @@ pub struct LocalClimate {
 impl Planet {
     /// The world's climate parameters (its file's `climate` section, or the defaults).
     pub fn climate_spec(&self) -> ClimateSpec {
-        self.spec.climate.clone().unwrap_or_default()
+        self.spec().climate.clone().unwrap_or_default()
     }
 
     /// Fraction of the orbit elapsed since the last time-zero anniversary, `[0, 1)`.
@@ -48,7 +48,7 @@ impl Planet {
             })
             .collect();
         AnnualForcing {
-            s0_w_m2: self.flux_at_mean_distance_w_m2,
+            s0_w_m2: self.flux_at_mean_distance_w_m2(),
             year_s: self.year_s(),
             samples,
         }

@@ -34,7 +34,7 @@ fn quillmere() -> Planet {
 /// once per `sidereal_day_s`: the moon's sky turns at 1/P_sky = |1/P_rotation − 1/P_moon|
 /// (the synodic-day relation, standard).
 fn rises_per_day(planet: &Planet, period_days: f64) -> f64 {
-    (DAY_S / planet.spin.sidereal_day_s - 1.0 / period_days).abs()
+    (DAY_S / planet.spin().sidereal_day_s - 1.0 / period_days).abs()
 }
 
 #[test]
@@ -72,7 +72,7 @@ fn rises_and_sets_alternate_at_the_synodic_day_rate() {
     let place = Place::from_degrees(0.0, 0.0).unwrap();
     // (moon, days to watch): a few of each moon's sky days.
     for (m, days) in [(0usize, 2.0), (1, 20.0), (2, 20.0)] {
-        let period = p.spec.moons[m].period_days;
+        let period = p.spec().moons[m].period_days;
         let mut out = Vec::new();
         let threshold = p.moon_rise_altitude_rad(m);
         p.moon_altitude_crossings_into(m, place, 0.0, days * DAY_S, threshold, &mut out);
@@ -144,7 +144,7 @@ fn phases_follow_the_synodic_month_for_hours_days_and_years() {
     let p = quillmere();
     let place = Place::from_degrees(30.0, 0.0).unwrap();
     for m in 0..3 {
-        let period_s = p.spec.moons[m].period_days * DAY_S;
+        let period_s = p.spec().moons[m].period_days * DAY_S;
         let synodic = insola::moons::synodic_period_s(period_s, p.year_s());
         let phase = |t: f64| {
             p.moon_view(&p.star_instant(t), m, place)
@@ -157,9 +157,9 @@ fn phases_follow_the_synodic_month_for_hours_days_and_years() {
         // inclined moon passes beside the star's line by up to its inclination; and the
         // synodic month is a mean, while the star's longitude runs ahead or behind its mean by
         // up to 2e (the equation of the centre's first term; standard).
-        let parallax = (p.spec.body.unwrap().radius_km / p.spec.moons[m].distance_km).asin();
-        let inclination = p.spec.moons[m].inclination_deg.to_radians();
-        let slack = 0.02 + parallax + inclination + 2.0 * p.spec.orbit.eccentricity;
+        let parallax = (p.spec().body.unwrap().radius_km / p.spec().moons[m].distance_km).asin();
+        let inclination = p.spec().moons[m].inclination_deg.to_radians();
+        let slack = 0.02 + parallax + inclination + 2.0 * p.spec().orbit.eccentricity;
         assert!(phase(0.0) < slack, "moon {m} full at zero: {}", phase(0.0));
         assert!(
             phase(0.5 * synodic) > PI - slack,

@@ -53,7 +53,7 @@ proptest! {
         let l = p.lighting(t, place, LightMode::Ground);
         prop_assert!(l.star.illuminance_lux >= 0.0 && l.star.illuminance_lux.is_finite());
         prop_assert!(l.sky.illuminance_lux >= 0.0 && l.sky.illuminance_lux.is_finite());
-        prop_assert!(l.star.color_linear_rgb.iter().all(|c| c.is_finite() && *c >= 0.0 && *c <= 1.0));
+        prop_assert!(l.star.colour_linear_srgb.iter().all(|c| c.is_finite() && *c >= 0.0 && *c <= 1.0));
         for m in &l.moons {
             prop_assert!((m.light.direction_enu.length() - 1.0).abs() < 1e-9);
             prop_assert!(m.light.illuminance_lux >= 0.0 && m.light.illuminance_lux.is_finite());
@@ -176,8 +176,8 @@ proptest! {
         // T = (S/(εσ))^¼, σ = 5.670374 × 10⁻⁸ W m⁻² K⁻⁴ (CODATA 2018; from memory). The model
         // never emits less than that gray body (ε is matched to its A + B·T at 60 °C), so no
         // band can absorb more than it sheds above that temperature.
-        let e = p.spec.orbit.eccentricity;
-        let peak_flux = p.flux_at_mean_distance_w_m2 / ((1.0 - e) * (1.0 - e));
+        let e = p.spec().orbit.eccentricity;
+        let peak_flux = p.flux_at_mean_distance_w_m2() / ((1.0 - e) * (1.0 - e));
         let spec = p.climate_spec();
         let sigma = 5.670_374e-8;
         let emissivity = (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * 60.0)

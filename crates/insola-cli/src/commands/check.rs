@@ -53,8 +53,8 @@ pub struct Facts {
 
 /// Computes the facts of a planet.
 pub fn facts(p: &Planet) -> Facts {
-    let spec = &p.spec;
-    let locked = p.spin.is_tidally_locked();
+    let spec = &p.spec();
+    let locked = p.spin().is_tidally_locked();
     let z = p.zone_latitudes();
     let s = p.season_lengths();
     let e = spec.orbit.eccentricity;
@@ -69,10 +69,12 @@ pub fn facts(p: &Planet) -> Facts {
     if z.overlapping {
         warnings.push("tilt above 45°: the tropics lie poleward of the polar circles".into());
     }
-    if p.flux_at_mean_distance_w_m2 < 0.5 * 1361.0 || p.flux_at_mean_distance_w_m2 > 2.0 * 1361.0 {
+    if p.flux_at_mean_distance_w_m2() < 0.5 * 1361.0
+        || p.flux_at_mean_distance_w_m2() > 2.0 * 1361.0
+    {
         warnings.push(format!(
             "flux {:.0} W/m² is far from Earth's 1361 W/m²: expect a frozen or scorched world without a tuned climate",
-            p.flux_at_mean_distance_w_m2
+            p.flux_at_mean_distance_w_m2()
         ));
     }
     if swing > 2.0 {
@@ -80,7 +82,7 @@ pub fn facts(p: &Planet) -> Facts {
             "eccentric orbit: the star is {swing:.1}× brighter at periapsis than at apoapsis"
         ));
     }
-    if !locked && p.spin.solar_day_s > p.year_s() {
+    if !locked && p.spin().solar_day_s > p.year_s() {
         warnings.push("the solar day is longer than the year".into());
     }
     if locked {
@@ -91,8 +93,8 @@ pub fn facts(p: &Planet) -> Facts {
     let days = |x: f64| x / SECONDS_PER_DAY;
     Facts {
         name: spec.name.clone(),
-        solar_day_h: (!locked).then(|| p.spin.solar_day_s / 3600.0),
-        sidereal_day_h: p.spin.sidereal_day_s / 3600.0,
+        solar_day_h: (!locked).then(|| p.spin().solar_day_s / 3600.0),
+        sidereal_day_h: p.spin().sidereal_day_s / 3600.0,
         year_days: days(p.year_s()),
         year_solar_days: (!locked).then(|| p.year_in_solar_days()),
         retrograde: p.is_retrograde(),
@@ -106,10 +108,12 @@ pub fn facts(p: &Planet) -> Facts {
             days(s.autumn_s),
             days(s.winter_s),
         ],
-        flux_at_mean_distance_w_m2: p.flux_at_mean_distance_w_m2,
+        flux_at_mean_distance_w_m2: p.flux_at_mean_distance_w_m2(),
         flux_swing_ratio: swing,
         star_angular_diameter_deg: 2.0
-            * (p.star_radius_m / p.semi_major_axis_m).asin().to_degrees(),
+            * (p.star_radius_m() / p.semi_major_axis_m())
+                .asin()
+                .to_degrees(),
         standard_rise_altitude_deg: p.standard_rise_altitude_rad().to_degrees(),
         warnings,
     }
@@ -123,7 +127,7 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&f);
     }
     say!("{} — valid", f.name);
-    if p.spec.reference {
+    if p.spec().reference {
         say!("  (validation reference world, not game content)");
     }
     match f.solar_day_h {

@@ -113,7 +113,7 @@ pub fn cycle_of(p: &Planet) -> Result<ClimateCycle, String> {
         }) => {
             eprintln!(
                 "insola: warning: {}: the climate did not settle into a repeating year after {years} model years (last change {residual_k:.3} K); showing the last year. The world may sit near an ice tipping point; try a larger climate.max_years.",
-                p.spec.name
+                p.spec().name
             );
             Ok(*last)
         }
@@ -146,8 +146,8 @@ pub fn report(p: &Planet, c: &ClimateCycle) -> ClimateReport {
         })
         .collect();
     ClimateReport {
-        name: p.spec.name.clone(),
-        obliquity_deg: p.spec.spin.obliquity_deg,
+        name: p.spec().name.clone(),
+        obliquity_deg: p.spec().spin.obliquity_deg,
         bands,
         global_mean_c: c.global_mean_c(),
         ice_area_fraction: c.ice_area_fraction(),
@@ -213,7 +213,7 @@ fn sweep(args: &Args, p: &Planet, text: &str) -> Result<(), String> {
     let mut rows = Vec::with_capacity(tilts.len());
     for &tilt in &tilts {
         bar.set_message(format!("tilt {tilt:.1}°"));
-        let mut spec = p.spec.clone();
+        let mut spec = p.spec().clone();
         spec.spin.obliquity_deg = tilt;
         let world = Planet::new(&spec).map_err(|e| format!("tilt {tilt}°: {e}"))?;
         let c = bar.suspend(|| cycle_of(&world))?;
@@ -234,7 +234,7 @@ fn sweep(args: &Args, p: &Planet, text: &str) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&rows);
     }
-    say!("{} — climate against tilt", p.spec.name);
+    say!("{} — climate against tilt", p.spec().name);
     say!(
         "{:>7} {:>9} {:>8} {:>9} {:>9} {:>8} {:>8} {:>6}",
         "tilt °",

@@ -101,7 +101,7 @@ pub fn resolve_day(
             let t = p.time_of_utc(noon).ok_or_else(|| {
                 format!(
                     "world `{}` is not tied to UTC (no epoch.utc); use --day",
-                    p.spec.name
+                    p.spec().name
                 )
             })?;
             Ok(p.local_day_count(t, lon_deg.to_radians()).floor() as i64)
@@ -122,7 +122,7 @@ pub fn run(args: Args) -> Result<(), String> {
     use super::output::hm;
     say!(
         "{} at {:.3}°, {:.3}° — local day {} ({:.2} h long)",
-        p.spec.name,
+        p.spec().name,
         lat,
         args.at.lon,
         day,

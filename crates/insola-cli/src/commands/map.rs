@@ -118,15 +118,20 @@ pub fn sample(p: &Planet, q: Quantity, n_lat: usize, n_time: usize) -> Result<Fi
                     (s.declination_rad, s.distance_factor)
                 })
                 .collect();
-            daily_mean_grid_w_m2(p.flux_at_mean_distance_w_m2, &lats_rad, &days, &mut values);
+            daily_mean_grid_w_m2(
+                p.flux_at_mean_distance_w_m2(),
+                &lats_rad,
+                &days,
+                &mut values,
+            );
         }
         Quantity::Daylength => {
             let h0 = p.standard_rise_altitude_rad();
-            let day_h = if p.spin.is_tidally_locked() {
+            let day_h = if p.spin().is_tidally_locked() {
                 // No solar day: the star stays where it is; show 24 h or 0 as up or down.
                 f64::NAN
             } else {
-                p.spin.solar_day_s / 3600.0
+                p.spin().solar_day_s / 3600.0
             };
             for (k, f) in fractions.iter().enumerate() {
                 let d = p.star_instant(f * p.year_s()).declination_rad;
@@ -185,7 +190,7 @@ fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
         .iter()
         .copied()
         .fold(f64::NEG_INFINITY, f64::max);
-    let name = &p.spec.name;
+    let name = &p.spec().name;
     match q {
         Quantity::Insolation => Style {
             title: format!("{name}: daily sunlight"),
@@ -199,10 +204,10 @@ fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
             },
         },
         Quantity::Daylength => {
-            let day_h = if p.spin.is_tidally_locked() {
+            let day_h = if p.spin().is_tidally_locked() {
                 24.0
             } else {
-                p.spin.solar_day_s / 3600.0
+                p.spin().solar_day_s / 3600.0
             };
             Style {
                 title: format!("{name}: length of daylight"),
@@ -337,7 +342,7 @@ pub fn render(p: &Planet, q: Quantity, field: &Field) -> image::RgbImage {
     }
 
     // Time axis: ticks in the world's days, plus the equinoxes and solstices.
-    let (day_len_s, day_word) = if p.spin.is_tidally_locked() {
+    let (day_len_s, day_word) = if p.spin().is_tidally_locked() {
         (SECONDS_PER_DAY, "standard days")
     } else {
         (p.day_s(), "local days")
@@ -408,15 +413,18 @@ pub fn render(p: &Planet, q: Quantity, field: &Field) -> image::RgbImage {
 }
 
 fn subtitle(p: &Planet) -> String {
-    let s = &p.spec;
+    let s = &p.spec();
     let mut out = format!(
         "tilt {:.1}°, eccentricity {:.3}, year {:.1} standard days",
         s.spin.obliquity_deg,
         s.orbit.eccentricity,
         p.year_s() / SECONDS_PER_DAY
     );
-    if !p.spin.is_tidally_locked() {
-        out.push_str(&format!(", solar day {:.1} h", p.spin.solar_day_s / 3600.0));
+    if !p.spin().is_tidally_locked() {
+        out.push_str(&format!(
+            ", solar day {:.1} h",
+            p.spin().solar_day_s / 3600.0
+        ));
     }
     if s.reference {
         out.push_str("  (validation reference, not game content)");
@@ -516,7 +524,7 @@ pub fn run(args: Args) -> Result<(), String> {
             .map_err(|e| format!("cannot write {path}: {e}"))?;
     }
     if let Some(path) = &args.csv {
-        let day_len = if p.spin.is_tidally_locked() {
+        let day_len = if p.spin().is_tidally_locked() {
             SECONDS_PER_DAY
         } else {
             p.day_s()
@@ -536,7 +544,7 @@ pub fn run(args: Args) -> Result<(), String> {
     };
     if args.json {
         return super::output::print_json(&MapReport {
-            name: p.spec.name.clone(),
+            name: p.spec().name.clone(),
             quantity: quantity.into(),
             unit: st.unit.into(),
             min,
@@ -549,7 +557,7 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     say!(
         "{}: {quantity} from {min:.1} to {max:.1} {} on {} latitudes × {} times",
-        p.spec.name,
+        p.spec().name,
         st.unit,
         args.lats,
         args.days

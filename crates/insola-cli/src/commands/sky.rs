@@ -106,7 +106,7 @@ pub fn resolve_time(p: &Planet, day: Option<f64>, utc: Option<&str>) -> Result<f
             p.time_of_utc(unix).ok_or_else(|| {
                 format!(
                     "world `{}` is not tied to UTC (no epoch.utc); use --day",
-                    p.spec.name
+                    p.spec().name
                 )
             })
         }
@@ -136,9 +136,9 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
         local_mean_time_h: p.local_mean_time_fraction(t, place.longitude_rad) * p.day_s() / 3600.0,
         direct_illuminance_lux: l.star.illuminance_lux,
         sky_illuminance_lux: l.sky.illuminance_lux,
-        light_rgb_linear: l.star.color_linear_rgb,
+        light_rgb_linear: l.star.colour_linear_srgb,
         light_cct_k: l.star.cct_k,
-        sky_rgb_linear: l.sky.color_linear_rgb,
+        sky_rgb_linear: l.sky.colour_linear_srgb,
         star_eclipse_fraction: l.star_eclipse_fraction,
         twilight: format!("{:?}", l.twilight).to_lowercase(),
         moons: l
@@ -173,7 +173,7 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     say!(
         "{} at {:.3}°, {:.3}° — day {:.4} (local mean time {:.2} h)",
-        p.spec.name,
+        p.spec().name,
         lat,
         args.at.lon,
         r.day,

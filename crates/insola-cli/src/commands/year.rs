@@ -85,7 +85,7 @@ pub fn run(args: Args) -> Result<(), String> {
         }
         return Ok(());
     }
-    say!("{} at {:.3}°, {:.3}°", p.spec.name, lat, args.at.lon);
+    say!("{} at {:.3}°, {:.3}°", p.spec().name, lat, args.at.lon);
     say!(
         "{:>6} {:>8} {:>10} {:>12} {:>12}",
         "day",

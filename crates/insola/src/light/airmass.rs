@@ -146,7 +146,7 @@ mod tests {
         let mut last = f64::NEG_INFINITY;
         for i in 0..=2000 {
             let h = f64::to_radians(-10.0 + 100.0 * i as f64 / 2000.0);
-            let a = apparent_altitude(h, super::super::MAX_REFRACTION_SCALE);
+            let a = apparent_altitude(h, crate::world::MAX_REFRACTION_SCALE);
             assert!(a > last, "not monotonic at {h}");
             last = a;
         }

@@ -18,8 +18,8 @@
 //!   documented simple approach, not a radiative-transfer solution: it ignores the phase
 //!   function, multiple scattering, ground reflection and ozone.
 
-use super::atmosphere::AtmosphereSpec;
 use super::extinction::Extinction;
+use crate::world::AtmosphereSpec;
 
 /// Solar illuminance constant of the IES 1984 daylight model, in lux.
 pub const IES_SOLAR_ILLUMINANCE_LUX: f64 = 127_500.0;

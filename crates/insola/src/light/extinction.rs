@@ -7,8 +7,8 @@
 //! * Aerosol: Ångström's law τ_a = β λ^(−α), λ in µm. An airless world has no aerosol.
 //! * No gaseous absorption (ozone, water vapour) is modelled.
 
-use super::atmosphere::AtmosphereSpec;
 use super::spectrum::{SPECTRUM_LEN, Spectrum, wavelength_nm};
+use crate::world::AtmosphereSpec;
 
 /// Rayleigh optical depth of a vertical column of Earth's air at sea level (1013.25 hPa), for a
 /// wavelength in micrometres (dimensionless): Bodhaine et al. 1999 eq. 30,

@@ -23,6 +23,26 @@ pub(crate) fn find_rise_altitude(refraction_scale: f64, radius_rad: f64) -> f64 
     0.5 * (lo + hi) - radius_rad
 }
 
+/// Fraction (0–1) of a body's disc counted as up, for a geometric altitude of its centre and its
+/// standard rise altitude (both radians) and its angular radius: 0 at and below the rise
+/// altitude, rising across one disc diameter above it, 1 from there on. This is the one fade
+/// rule for every body's light, so a light is on exactly while its body is up (centre above
+/// the rise altitude) and its rise and set events fall where the light switches.
+pub fn disc_fraction_above_rise(
+    geometric_altitude_rad: f64,
+    rise_altitude_rad: f64,
+    radius_rad: f64,
+) -> f64 {
+    if geometric_altitude_rad.is_nan() {
+        return 0.0;
+    }
+    let above = geometric_altitude_rad - rise_altitude_rad;
+    if radius_rad.is_nan() || radius_rad <= 0.0 {
+        return if above > 0.0 { 1.0 } else { 0.0 };
+    }
+    disc_fraction_above_horizon(above - radius_rad, radius_rad)
+}
+
 /// Fraction (0–1) of a uniform disc of angular radius `radius_rad` above a straight horizon when
 /// its centre is at apparent altitude `apparent_altitude_rad` (both radians): 1 − [acos u −
 /// u √(1 − u²)]/π with u = altitude/radius clamped to ±1. A point star (radius 0) is a step.

@@ -27,7 +27,6 @@
 //! references and defaults.
 
 mod airmass;
-mod atmosphere;
 pub mod cie1931;
 mod colour;
 mod daylight;
@@ -40,8 +39,8 @@ mod spectrum;
 mod star_light;
 mod twilight;
 
+pub use crate::world::{AtmosphereSpec, MAX_SURFACE_PRESSURE_KPA, REFERENCE_PRESSURE_KPA};
 pub use airmass::*;
-pub use atmosphere::*;
 pub use colour::*;
 pub use daylight::*;
 pub use eclipse::*;

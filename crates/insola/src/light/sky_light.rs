@@ -4,13 +4,13 @@
 use serde::{Deserialize, Serialize};
 
 use super::airmass::{HORIZON_AIR_MASS_KY89, apparent_altitude, relative_air_mass};
-use super::atmosphere::AtmosphereSpec;
 use super::colour::{LightColour, light_colour_of_ln_spectrum};
 use super::daylight::{IES_SOLAR_ILLUMINANCE_LUX, ln_sky_weight, sky_brightness_scale};
 use super::extinction::Extinction;
 use super::twilight::{
     EarthSkyCurve, NAUTICAL_TWILIGHT_DEG, NIGHT_SKY_FLOOR_LUX, TWILIGHT_BLUE_POWER, TwilightPhase,
 };
+use crate::world::AtmosphereSpec;
 
 /// Light from the clear sky (not the star's disc) on a horizontal surface.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]

@@ -15,14 +15,14 @@
 use serde::{Deserialize, Serialize};
 
 use super::airmass::{HORIZON_AIR_MASS_KY89, apparent_altitude, relative_air_mass};
-use super::atmosphere::AtmosphereSpec;
 use super::colour::{LightColour, blackbody_luminous_efficacy, light_colour_of_ln_spectrum};
 use super::extinction::Extinction;
-use super::horizon::{disc_fraction_above_horizon, find_rise_altitude};
+use super::horizon::{disc_fraction_above_rise, find_rise_altitude};
 use super::sky_light::{SkyLight, SkyModel};
 use super::spectrum::{SPECTRUM_LEN, planck_spectral_exitance, wavelength_nm};
 use super::twilight::TwilightPhase;
 use crate::error::{SpecError, check_range};
+use crate::world::AtmosphereSpec;
 
 /// Lowest star effective temperature accepted, in kelvin.
 pub const MIN_STAR_TEMPERATURE_K: f64 = 500.0;
@@ -203,9 +203,28 @@ impl StarLightModel {
 
     /// Direct beam at the ground for the star's geometric altitude (radians) and the
     /// top-of-atmosphere irradiance normal to the beam (W m⁻²): illuminance on a surface facing
-    /// the star (lux), colour and CCT. Zero once the whole disc is below the horizon. A NaN
-    /// altitude counts as −90°.
+    /// the star (lux), colour and CCT. Zero at and below the star's rise altitude
+    /// ([`StarLightModel::rise_altitude_rad`]), faded across its disc above it
+    /// ([`disc_fraction_above_rise`]). A NaN altitude counts as −90°.
     pub fn direct_beam(&self, geometric_altitude_rad: f64, toa_irradiance_w_m2: f64) -> BeamLight {
+        self.direct_beam_of_disc(
+            geometric_altitude_rad,
+            toa_irradiance_w_m2,
+            self.star_angular_radius_rad,
+            self.rise_altitude_rad,
+        )
+    }
+
+    /// The star's light reaching the ground along the path of another disc (a moon's
+    /// reflected starlight): the same extinction at `geometric_altitude_rad`, faded across a
+    /// disc of `radius_rad` above `rise_altitude_rad` (all radians).
+    pub fn direct_beam_of_disc(
+        &self,
+        geometric_altitude_rad: f64,
+        toa_irradiance_w_m2: f64,
+        radius_rad: f64,
+        rise_altitude_rad: f64,
+    ) -> BeamLight {
         let h = if geometric_altitude_rad.is_nan() {
             -std::f64::consts::FRAC_PI_2
         } else {
@@ -221,7 +240,7 @@ impl StarLightModel {
         let mx = v[1].max(v[2]).max(v[3]).max(f64::MIN_POSITIVE);
         let lux = self.toa_lux(toa_irradiance_w_m2)
             * v[0].exp()
-            * disc_fraction_above_horizon(a, self.star_angular_radius_rad);
+            * disc_fraction_above_rise(h, rise_altitude_rad, radius_rad);
         BeamLight {
             illuminance_lux: lux,
             colour: LightColour {

@@ -1,11 +1,29 @@
-//! World files: the description of a planet, its star and its sky, and their validation.
+//! World files: the description of a planet, its star and its sky (the whole `*.world.ron`
+//! schema, one file per section), loading, and validation.
+//!
+//! | section | type | file |
+//! |---|---|---|
+//! | the world, star, orbit, spin, epoch | [`WorldSpec`], [`StarSpec`], [`OrbitSpec`], [`SpinSpec`], [`EpochSpec`] | `spec.rs` |
+//! | `atmosphere` | [`AtmosphereSpec`] | `atmosphere.rs` |
+//! | `body` | [`BodySpec`] | `body.rs` |
+//! | `moons` | [`MoonSpec`] | `moon.rs` |
+//! | `calendar` | [`CalendarSpec`] | `calendar.rs` |
+//! | `climate` | [`crate::climate::ClimateSpec`] | `climate/spec.rs` |
 
+mod atmosphere;
+mod body;
+mod calendar;
 mod load;
+mod moon;
 mod spec;
 mod utc;
 mod validate;
 
+pub use atmosphere::*;
+pub use body::*;
+pub use calendar::*;
 pub use load::*;
+pub use moon::*;
 pub use spec::*;
 pub use utc::*;
 pub use validate::*;

@@ -35,19 +35,19 @@ pub struct WorldSpec {
     pub epoch: EpochSpec,
     /// The air, if any. Absent: an Earth-like clear atmosphere.
     #[serde(default, skip_serializing_if = "Option::is_none")]
-    pub atmosphere: Option<crate::light::AtmosphereSpec>,
+    pub atmosphere: Option<super::AtmosphereSpec>,
     /// Parameters of the seasonal climate model. Absent: Earth-calibrated defaults.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub climate: Option<crate::climate::ClimateSpec>,
     /// The planet's radius and mass, and the star's mass (for moons). Absent: Earth-like.
     #[serde(default, skip_serializing_if = "Option::is_none")]
-    pub body: Option<crate::moons::BodySpec>,
+    pub body: Option<super::BodySpec>,
     /// Natural satellites, zero or more.
     #[serde(default, skip_serializing_if = "Vec::is_empty")]
-    pub moons: Vec<crate::moons::MoonSpec>,
+    pub moons: Vec<super::MoonSpec>,
     /// Names and lengths of months, and the number of the first year.
     #[serde(default, skip_serializing_if = "Option::is_none")]
-    pub calendar: Option<crate::calendar::CalendarSpec>,
+    pub calendar: Option<super::CalendarSpec>,
 }
 
 /// The star. Give exactly one of `luminosity_l_sun` and `flux_at_mean_distance_w_m2`.

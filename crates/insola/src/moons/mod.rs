@@ -1,0 +1,23 @@
+//! Moons: orbits around the planet, where they stand in the local sky, their phase, light and
+//! eclipses.
+//!
+//! Each moon follows a fixed Keplerian orbit around the planet's centre (no perturbations, no
+//! precession of its node), with its inclination and node measured from the planet's orbital
+//! plane (the ecliptic frame, see [`crate::frames`]). Positions are topocentric: the observer's
+//! offset from the planet's centre is included, so a moon's parallax, and therefore where a
+//! solar eclipse is seen, comes out right.
+//!
+//! One file per job: [`orbit`](self::MoonOrbit) (the ellipse), `view` (where a moon stands for
+//! a place), `light` (moonlight), `rise` (rise and set). A moon's world-file section is
+//! [`crate::world::MoonSpec`].
+
+mod light;
+mod orbit;
+mod rise;
+mod view;
+
+pub use orbit::*;
+pub use view::*;
+
+#[cfg(test)]
+mod tests;
