@@ -75,7 +75,7 @@ fn print_notices(mut notices: MessageReader<SkyNotice>, world: Res<ActiveWorld>)
             | SkyNoticeKind::StarEclipseEnds { moon } => {
                 // The notice names the moon by its index; say its name instead.
                 let name = planet
-                    .spec
+                    .spec()
                     .moons
                     .get(moon)
                     .map_or("a moon", |m| m.name.as_str());

@@ -115,7 +115,7 @@ fn colour_by_temperature(
     if let (Some(planet), Ok(mut text)) = (world.planet(), text.single_mut()) {
         text.0 = format!(
             "{} | year {} day {} | temperature -40 C (blue) to +50 C (red) | W: next world",
-            planet.spec.name,
+            planet.spec().name,
             sky.date.year,
             sky.date.day_of_year + 1
         );
@@ -144,7 +144,7 @@ fn next_world(
     }
     let name = world
         .planet()
-        .map(|p| p.spec.name.clone())
+        .map(|p| p.spec().name.clone())
         .unwrap_or_default();
     let current = worlds
         .0

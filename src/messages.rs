@@ -321,7 +321,7 @@ fn collect_into(
     // Equinoxes and solstices (exact: the core inverts Kepler's equation).
     for mark in SeasonMark::ALL {
         let mut t = planet
-            .orbit
+            .orbit()
             .time_of_star_longitude(mark.ecliptic_longitude_rad(), t0);
         while t <= t1 {
             if t > t0 {
@@ -334,7 +334,7 @@ fn collect_into(
                 );
             }
             let next = planet
-                .orbit
+                .orbit()
                 .time_of_star_longitude(mark.ecliptic_longitude_rad(), t + 0.5 * year_s);
             if !runs_forward(t, next) {
                 break;

@@ -73,5 +73,5 @@ pub fn world_name(app: &App) -> Option<String> {
     app.world()
         .resource::<ActiveWorld>()
         .planet()
-        .map(|p| p.spec.name.clone())
+        .map(|p| p.spec().name.clone())
 }
