@@ -79,7 +79,7 @@ impl AssetLoader for WorldFileLoader {
 ///     spin: (obliquity_deg: 20, solar_day_hours: 22))"#;
 /// let mut world = ActiveWorld::default();
 /// world.set_spec(&insola::WorldSpec::parse_unchecked(text).unwrap()).unwrap();
-/// assert_eq!(world.planet().unwrap().spec.name, "Pellucid");
+/// assert_eq!(world.planet().unwrap().spec().name, "Pellucid");
 /// assert_eq!(world.generation(), 1);
 /// ```
 #[derive(Resource, Debug, Default)]

@@ -68,7 +68,7 @@ pub fn refraction_saemundsson(true_altitude_rad: f64) -> f64 {
 /// Apparent altitude in radians for a true altitude in radians, with Earth's refraction
 /// multiplied by `refraction_scale` (0 = no refraction; see
 /// [`super::AtmosphereSpec::refraction_scale`]). Monotonic in the true altitude for scales up to
-/// [`super::MAX_REFRACTION_SCALE`].
+/// [`crate::world::MAX_REFRACTION_SCALE`].
 pub fn apparent_altitude(true_altitude_rad: f64, refraction_scale: f64) -> f64 {
     if refraction_scale <= 0.0 {
         return true_altitude_rad;
