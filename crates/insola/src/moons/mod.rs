@@ -7,8 +7,8 @@
 //! offset from the planet's centre is included, so a moon's parallax, and therefore where a
 //! solar eclipse is seen, comes out right.
 //!
-//! One file per job: [`orbit`](self::MoonOrbit) (the ellipse), `view` (where a moon stands for
-//! a place), `light` (moonlight), `rise` (rise and set). A moon's world-file section is
+//! One file per job: `orbit` (the ellipse, [`MoonOrbit`]), `view` (where a moon stands for a
+//! place, [`MoonView`]), `light` (moonlight), `rise` (rise and set). A moon's world-file section is
 //! [`crate::world::MoonSpec`].
 
 mod light;
