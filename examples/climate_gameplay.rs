@@ -37,7 +37,7 @@ fn main() -> AppExit {
         .add_plugins(MinimalPlugins.set(ScheduleRunnerPlugin::run_loop(Duration::from_millis(2))))
         // One world hour per tick.
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_spec(spec)
                 .with_clock_rate(3600.0 / 0.002),
         )
@@ -129,7 +129,7 @@ fn stop_after_a_year(
     mut exit: MessageWriter<AppExit>,
 ) {
     if let Some(planet) = world.planet()
-        && clock.elapsed_s() >= planet.year_s()
+        && clock.world_time_s() >= planet.year_s()
     {
         exit.write(AppExit::Success);
     }

@@ -43,7 +43,7 @@ fn main() -> AppExit {
         // 100 server ticks per second; each tick advances the world by 36 minutes.
         .add_plugins(MinimalPlugins.set(ScheduleRunnerPlugin::run_loop(Duration::from_millis(10))))
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_spec(spec)
                 .with_reference_place(52.0, 0.0)
                 .with_clock_rate(36.0 * 60.0 * 100.0),
@@ -107,7 +107,7 @@ fn stop_after_days(
     mut exit: MessageWriter<AppExit>,
 ) {
     if let Some(planet) = world.planet()
-        && clock.elapsed_s() >= run.days * planet.day_s()
+        && clock.world_time_s() >= run.days * planet.day_s()
     {
         exit.write(AppExit::Success);
     }

@@ -214,7 +214,7 @@ impl ClimateSnapshot {
 /// fn frost_warning(climate: Res<SeasonalClimate>, clock: Res<bevy_insola::WorldClock>, world: Res<bevy_insola::ActiveWorld>) {
 ///     let (Some(planet), true) = (world.planet(), climate.is_ready()) else { return };
 ///     let farm = SurfacePlace::from_degrees(52.0, 10.0).unwrap().place();
-///     if climate.local_temperature_c(planet, farm, clock.elapsed_s()).is_some_and(|t| t < 0.0) {
+///     if climate.local_temperature_c(planet, farm, clock.world_time_s()).is_some_and(|t| t < 0.0) {
 ///         info!("frost on the farm");
 ///     }
 /// }
@@ -305,7 +305,7 @@ impl SeasonalClimate {
 }
 
 /// Starts a background rebuild when the world changes and installs it when done.
-pub fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClimate>) {
+pub(crate) fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClimate>) {
     let generation = world.generation();
     let Some(planet) = world.planet_arc() else {
         return;

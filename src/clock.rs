@@ -149,7 +149,7 @@ pub enum ClockError {
 /// assert_eq!(clock.now().as_secs_f64(), 1800.0);
 /// clock.pause();
 /// clock.tick(Duration::from_secs(5));
-/// assert_eq!(clock.elapsed_s(), 1800.0);
+/// assert_eq!(clock.world_time_s(), 1800.0);
 /// ```
 #[derive(Resource, Debug, Clone, PartialEq, Reflect, Serialize, Deserialize)]
 #[reflect(Resource, Debug, Default, Clone)]
@@ -168,8 +168,13 @@ pub struct WorldClock {
     /// Stop the world clock while [`Time<Virtual>`] is paused. Default `true`.
     pub follows_virtual_pause: bool,
     /// Largest real frame time the clock accepts, seconds; longer frames (a hitch, a debugger
-    /// stop) count as this much. Default: no limit (`f64::INFINITY`).
-    pub max_real_delta_s: f64,
+    /// stop) count as this much. Default `None`: no limit. (An `Option` rather than an infinite
+    /// number, so that JSON save games, which have no infinity, round-trip.)
+    pub max_real_delta_s: Option<f64>,
+    /// When set, the rate follows the active world: one local solar day passes in this many
+    /// real seconds, for whatever world is loaded now or later. Cleared by
+    /// [`WorldClock::set_rate`]. Default `None` (the rate is as set).
+    pub real_seconds_per_day: Option<f64>,
 }
 
 impl Default for WorldClock {
@@ -183,7 +188,8 @@ impl Default for WorldClock {
             jumped: false,
             pending_jump: false,
             follows_virtual_pause: true,
-            max_real_delta_s: f64::INFINITY,
+            max_real_delta_s: None,
+            real_seconds_per_day: None,
         }
     }
 }
@@ -213,7 +219,7 @@ impl WorldClock {
     }
 
     /// This frame's world time, seconds since time zero.
-    pub fn elapsed_s(&self) -> f64 {
+    pub fn world_time_s(&self) -> f64 {
         self.now.as_secs_f64()
     }
 
@@ -248,6 +254,7 @@ impl WorldClock {
             });
         }
         self.rate = rate;
+        self.real_seconds_per_day = None;
         Ok(())
     }
 
@@ -327,6 +334,14 @@ impl WorldClock {
                 allowed: format!("0 up to the day length ({day_h} h)"),
             });
         }
+        let days = days_in_year(planet, year);
+        if day_of_year >= days {
+            return Err(ClockError::OutOfRange {
+                what: "day_of_year",
+                value: day_of_year as f64,
+                allowed: format!("0 to {} (year {year} has {days} calendar days)", days - 1),
+            });
+        }
         let t = planet.time_of_date(year, day_of_year, hour_of_day);
         if !t.is_finite() {
             return Err(ClockError::NotFinite {
@@ -351,7 +366,7 @@ impl WorldClock {
 
     /// The current instant read on the world's calendar.
     pub fn date(&self, planet: &Planet) -> CalendarDate {
-        planet.date_at(self.elapsed_s())
+        planet.date_at(self.world_time_s())
     }
 
     /// Advances by one frame of `real_delta` real time: `previous` becomes the old `now`, then
@@ -366,7 +381,10 @@ impl WorldClock {
         self.previous = self.now;
         self.jumped = core::mem::take(&mut self.pending_jump);
         if !paused {
-            let real_s = real_delta.as_secs_f64().min(self.max_real_delta_s);
+            let real_s = match self.max_real_delta_s {
+                Some(cap) => real_delta.as_secs_f64().min(cap.max(0.0)),
+                None => real_delta.as_secs_f64(),
+            };
             self.now.add_secs(self.rate * real_s);
         }
         let step = core::mem::take(&mut self.pending_step_s);
@@ -376,12 +394,32 @@ impl WorldClock {
     }
 }
 
+/// Number of calendar days (day numbers `0..n`) that year `year` holds: the days whose local
+/// midnight at the prime meridian, or the year's start, falls inside the year.
+fn days_in_year(planet: &Planet, year: i64) -> u64 {
+    let year_start = (year - planet.calendar().first_year) as f64 * planet.year_s();
+    // The last instant of the year, a millionth of a second before the next one starts.
+    let last = year_start + planet.year_s() - (planet.year_s() * 1e-12).max(1e-6);
+    planet.date_at(last).day_of_year + 1
+}
+
 /// Advances the [`WorldClock`] by the real frame time.
-pub fn advance_world_clock(
+pub(crate) fn advance_world_clock(
     mut clock: ResMut<WorldClock>,
     real: Res<Time<Real>>,
     virt: Option<Res<Time<Virtual>>>,
+    world: Option<Res<crate::ActiveWorld>>,
 ) {
+    if let Some(real_s) = clock.real_seconds_per_day
+        && let Some(planet) = world.as_deref().and_then(crate::ActiveWorld::planet)
+        && real_s.is_finite()
+        && real_s > 0.0
+    {
+        let rate = planet.day_s() / real_s;
+        if clock.rate != rate {
+            clock.rate = rate;
+        }
+    }
     let virtual_paused = clock.follows_virtual_pause && virt.is_some_and(|v| v.is_paused());
     let paused = clock.paused || virtual_paused;
     clock.tick_scaled(real.delta(), paused);
@@ -435,11 +473,11 @@ mod tests {
         let mut clock = WorldClock::default().with_rate(10.0);
         clock.pause();
         clock.tick(Duration::from_secs(1));
-        assert_eq!(clock.elapsed_s(), 0.0);
+        assert_eq!(clock.world_time_s(), 0.0);
         clock.step(2.5).unwrap();
         clock.tick(Duration::from_secs(1));
         assert_eq!(
-            (clock.previous().as_secs_f64(), clock.elapsed_s()),
+            (clock.previous().as_secs_f64(), clock.world_time_s()),
             (0.0, 2.5)
         );
         clock.resume();
@@ -447,7 +485,7 @@ mod tests {
         clock.tick(Duration::from_secs(1));
         assert!(clock.jumped_this_frame());
         assert_eq!(
-            (clock.previous().as_secs_f64(), clock.elapsed_s()),
+            (clock.previous().as_secs_f64(), clock.world_time_s()),
             (100.0, 110.0)
         );
         clock.tick(Duration::ZERO);

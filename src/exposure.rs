@@ -10,7 +10,7 @@
 use bevy::camera::Exposure;
 use bevy::prelude::*;
 
-use crate::sky_state::SkyState;
+use crate::flash_guard::DisplayedSky;
 
 /// Calibration constant of an incident-light meter with a flat receptor, lux·s (ISO 2720
 /// gives a range of about 240–400 for flat receptors; 250 is a common choice — from memory).
@@ -106,8 +106,8 @@ impl ExposureFollowsSky {
 }
 
 /// Writes [`Exposure`] on cameras with [`ExposureFollowsSky`].
-pub fn follow_sky_exposure(
-    sky: Res<SkyState>,
+pub(crate) fn follow_sky_exposure(
+    sky: Res<DisplayedSky>,
     real: Res<Time<Real>>,
     mut cameras: Query<(&mut ExposureFollowsSky, &mut Exposure)>,
 ) {

@@ -19,7 +19,8 @@ use bevy::color::{Color, LinearRgba};
 use bevy::prelude::*;
 
 use crate::settings::{InsolaSettings, SceneCompass};
-use crate::sky_state::{SkyBody, SkyState};
+use crate::flash_guard::DisplayedSky;
+use crate::sky_state::SkyBody;
 
 /// Marks a directional light driven by the star.
 ///
@@ -97,7 +98,7 @@ fn drive_light(
             transform.rotation = rotation;
         }
     }
-    let on = body.is_some_and(|b| b.above_horizon && b.illuminance_lux > 0.0);
+    let on = body.is_some_and(|b| b.is_up && b.illuminance_lux > 0.0);
     let Some(body) = body.filter(|_| on) else {
         visibility.set_if_neq(Visibility::Hidden);
         if light.illuminance != 0.0 {
@@ -122,9 +123,9 @@ type LightParts = (
 );
 
 /// Writes the star's and moons' rotation, illuminance, colour and visibility into their
-/// lights.
-pub fn write_body_lights(
-    sky: Res<SkyState>,
+/// lights, from the [`DisplayedSky`] (the exact sky unless the flash guard holds it).
+pub(crate) fn write_body_lights(
+    sky: Res<DisplayedSky>,
     settings: Res<InsolaSettings>,
     mut stars: Query<LightParts, (With<StarLight>, Without<MoonLight>)>,
     mut moons: Query<(&MoonLight, LightParts), Without<StarLight>>,
@@ -143,15 +144,15 @@ pub fn write_body_lights(
         );
     }
     for (moon, (mut light, mut transform, mut visibility)) in &mut moons {
-        let body = sky.moons.get(moon.moon).map(|m| &m.body);
+        let body = sky.moons.get(moon.moon);
         drive_light(body, compass, &mut light, &mut transform, &mut visibility);
     }
 }
 
 /// Writes the sky's diffuse light into [`GlobalAmbientLight`] (when
 /// [`InsolaSettings::write_ambient_light`] is on).
-pub fn write_ambient_light(
-    sky: Res<SkyState>,
+pub(crate) fn write_ambient_light(
+    sky: Res<DisplayedSky>,
     settings: Res<InsolaSettings>,
     ambient: Option<ResMut<GlobalAmbientLight>>,
 ) {

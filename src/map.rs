@@ -75,7 +75,7 @@ pub struct PlaceFromPosition;
 
 /// Sets the [`SurfacePlace`] of moved [`PlaceFromPosition`] entities (all of them when the
 /// projection or the compass changes).
-pub fn places_from_positions(
+pub(crate) fn places_from_positions(
     projection: Option<Res<MapProjection>>,
     settings: Res<InsolaSettings>,
     mut entities: Query<(Ref<Transform>, &mut SurfacePlace), With<PlaceFromPosition>>,

@@ -233,7 +233,7 @@ pub struct WorldRejected {
 
 /// Reused buffers and the world generation seen last frame.
 #[derive(Default)]
-pub struct NoticeScratch {
+pub(crate) struct NoticeScratch {
     generation: u64,
     crossings: Vec<Crossing>,
     notices: Vec<SkyNotice>,
@@ -514,7 +514,7 @@ fn transits_into(planet: &Planet, place: Place, t0: f64, t1: f64, emit: &mut dyn
 }
 
 /// Sends this frame's [`SkyNotice`]s for the span `(previous, now]` of the [`WorldClock`].
-pub fn send_sky_notices(
+pub(crate) fn send_sky_notices(
     world: Res<ActiveWorld>,
     clock: Res<WorldClock>,
     settings: Res<InsolaSettings>,
@@ -530,7 +530,7 @@ pub fn send_sky_notices(
         scratch.generation = world.generation();
         return;
     }
-    let (t0, t1) = (clock.previous().as_secs_f64(), clock.elapsed_s());
+    let (t0, t1) = (clock.previous().as_secs_f64(), clock.world_time_s());
     if !runs_forward(t0, t1) {
         return;
     }

@@ -159,7 +159,7 @@ impl LocalConditions {
 #[reflect(Resource, Debug, Default, Clone)]
 pub struct ObserverInstant {
     /// World time of the last observer update, seconds since time zero.
-    pub t_s: Option<f64>,
+    pub world_time_s: Option<f64>,
 }
 
 /// Where a frame's temperatures come from.
@@ -290,7 +290,7 @@ impl StarFrame {
 
 /// When observers were last updated, and the shared temperature table.
 #[derive(Default)]
-pub struct ObserverCadence {
+pub(crate) struct ObserverCadence {
     last_real_s: Option<f64>,
     last_world_s: f64,
     generation: u64,
@@ -325,11 +325,11 @@ impl ObserverCadence {
     clippy::too_many_arguments,
     reason = "a Bevy system's parameters are its data access"
 )]
-pub fn update_observers(
+pub(crate) fn update_observers(
     world: Res<ActiveWorld>,
     clock: Res<WorldClock>,
     settings: Res<InsolaSettings>,
-    climate: Res<SeasonalClimate>,
+    climate: Option<Res<SeasonalClimate>>,
     real: Res<Time<Real>>,
     mut instant: ResMut<ObserverInstant>,
     mut cadence: Local<ObserverCadence>,
@@ -338,11 +338,14 @@ pub fn update_observers(
     let Some(planet) = world.planet() else {
         return;
     };
+    // Without the climate part, observers report the sky and no temperature.
+    let climate = climate.as_deref();
+    let climate_ready = climate.is_some_and(SeasonalClimate::is_ready);
     let now_real = real.elapsed_secs_f64();
-    let now_world = clock.elapsed_s();
+    let now_world = clock.world_time_s();
     let forced = cadence.last_real_s.is_none()
         || cadence.generation != world.generation()
-        || cadence.climate_ready != climate.is_ready()
+        || cadence.climate_ready != climate_ready
         || clock.jumped_this_frame();
     let due = forced
         || match settings.observer_interval {
@@ -355,18 +358,18 @@ pub fn update_observers(
     if due {
         // Counting stops at the threshold: a full count visits every entity.
         let many = observers.iter().take(TABLE_MIN_PLACES).count() == TABLE_MIN_PLACES;
-        cadence.frame = match climate.model_arc() {
+        cadence.frame = match climate.and_then(SeasonalClimate::model_arc) {
             Some(model) if many => {
                 let snapshot = cadence.table(model.clone(), model.year_fraction(now_world));
                 StarFrame::with_table(planet, now_world, &snapshot)
             }
-            _ => StarFrame::new(planet, now_world, Some(&climate)),
+            _ => StarFrame::new(planet, now_world, climate),
         };
         cadence.last_real_s = Some(now_real);
         cadence.last_world_s = now_world;
         cadence.generation = world.generation();
-        cadence.climate_ready = climate.is_ready();
-        instant.t_s = Some(now_world);
+        cadence.climate_ready = climate_ready;
+        instant.world_time_s = Some(now_world);
     }
     let frame = &cadence.frame;
     if !due {

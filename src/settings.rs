@@ -6,6 +6,8 @@ use bevy::prelude::*;
 use insola::Place;
 use insola::lighting::LightMode;
 
+use crate::flash_guard::FlashGuard;
+
 /// Which way the scene's axes point on the planet's surface.
 ///
 /// The core computes directions in the local east-north-up frame; the compass turns them into
@@ -157,6 +159,9 @@ pub struct InsolaSettings {
     /// frame (a big step) sends none and logs a warning, so one step of centuries cannot stall
     /// the game. Default: two world years' worth of a 1000-day year (1.728×10⁸ s).
     pub max_notified_span_s: f64,
+    /// Keeps the displayed light from flashing at high clock rates (photosensitivity). Default
+    /// [`FlashGuard::On`]; turn it off only for tools and tests. See [`crate::flash_guard`].
+    pub flash_guard: FlashGuard,
 }
 
 impl Default for InsolaSettings {
@@ -169,6 +174,7 @@ impl Default for InsolaSettings {
             write_ambient_light: true,
             observer_interval: ObserverInterval::EveryFrame,
             max_notified_span_s: 2.0 * 1000.0 * 86_400.0,
+            flash_guard: FlashGuard::default(),
         }
     }
 }

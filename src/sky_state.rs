@@ -9,8 +9,9 @@
 use bevy::color::LinearRgba;
 use bevy::math::DVec3;
 use bevy::prelude::*;
-use insola::Planet;
+use insola::events::DayEvents;
 use insola::lighting::{BodyLight, LightingState};
+use insola::{Place, Planet};
 
 use crate::clock::WorldClock;
 use crate::season::SeasonOfYear;
@@ -82,13 +83,13 @@ pub struct SkyBody {
     pub cct_k: f64,
     /// Angular radius of the disc, radians.
     pub angular_radius_rad: f64,
-    /// `true` while any part of the disc is above the horizon (for the star: its centre is
-    /// above the standard rise altitude, refraction included).
-    pub above_horizon: bool,
+    /// `true` while the body is up: its upper limb above the refracted horizon, the core's one
+    /// rise rule ([`BodyLight::is_up`]); the rise and set notices fall where this changes.
+    pub is_up: bool,
 }
 
 impl SkyBody {
-    fn from_core(body: &BodyLight, compass: &SceneCompass, rise_altitude_rad: f64) -> SkyBody {
+    pub(crate) fn from_core(body: &BodyLight, compass: &SceneCompass) -> SkyBody {
         let [r, g, b] = body.colour_linear_srgb;
         SkyBody {
             direction: compass.to_scene(body.direction_enu).normalize_or_zero(),
@@ -99,7 +100,7 @@ impl SkyBody {
             color: LinearRgba::rgb(r as f32, g as f32, b as f32),
             cct_k: body.cct_k,
             angular_radius_rad: body.angular_radius_rad,
-            above_horizon: body.altitude_rad > rise_altitude_rad,
+            is_up: body.is_up,
         }
     }
 
@@ -192,6 +193,15 @@ pub struct SkyState {
     pub horizontal_illuminance_lux: f64,
     /// The calendar date.
     pub date: SkyDate,
+    /// Number of the local solar day at the reference place (day 0 holds time zero at the
+    /// prime meridian); it changes at local mean midnight. Counts on across years, unlike
+    /// [`SkyDate::day_of_year`].
+    pub local_day: i64,
+    /// Today's events at the reference place: rise, transit and set of the star, each
+    /// twilight's dawn and dusk, and the daylight (time the star is up). Recomputed once per
+    /// local day (not reflected).
+    #[reflect(ignore)]
+    pub today: Option<DayEvents>,
     /// The season in the reference place's hemisphere.
     pub season: SeasonOfYear,
     /// The core's full lighting state (not reflected).
@@ -205,13 +215,13 @@ impl SkyState {
         let place = settings.reference_place_clamped();
         let lighting = planet.lighting(t_s, place, settings.attenuation.light_mode());
         let compass = &settings.compass;
-        let star = SkyBody::from_core(&lighting.star, compass, planet.standard_rise_altitude_rad());
+        let star = SkyBody::from_core(&lighting.star, compass);
         let moons: Vec<SkyMoon> = lighting
             .moons
             .iter()
             .map(|m| SkyMoon {
                 name: m.name.clone(),
-                body: SkyBody::from_core(&m.light, compass, -m.light.angular_radius_rad),
+                body: SkyBody::from_core(&m.light, compass),
                 phase_angle_rad: m.phase_angle_rad,
                 illuminated_fraction: m.illuminated_fraction,
                 eclipse_fraction: m.eclipse_fraction,
@@ -243,20 +253,55 @@ impl SkyState {
                 year_fraction: date.year_fraction,
             },
             season: SeasonOfYear::at(ecliptic_longitude, place.latitude_rad),
+            local_day: local_day(planet, t_s, place),
+            today: None,
             lighting: Some(lighting),
         }
     }
+
+    /// [`SkyState::compute`] with today's events filled in.
+    pub fn compute_with_today(planet: &Planet, t_s: f64, settings: &InsolaSettings) -> SkyState {
+        let mut sky = SkyState::compute(planet, t_s, settings);
+        let place = settings.reference_place_clamped();
+        sky.today = Some(planet.day_events(sky.local_day, place));
+        sky
+    }
+}
+
+/// The local solar day holding `t_s` at `place`.
+fn local_day(planet: &Planet, t_s: f64, place: Place) -> i64 {
+    planet.local_day_count(t_s, place.longitude_rad).floor() as i64
+}
+
+/// What today's events were computed for: a new day, world or place recomputes them.
+#[derive(Default)]
+pub(crate) struct TodayKey {
+    key: Option<(u64, i64, [u64; 2])>,
+    events: Option<DayEvents>,
 }
 
 /// Recomputes [`SkyState`] for this frame's instant.
-pub fn compute_sky_state(
+pub(crate) fn compute_sky_state(
     world: Res<ActiveWorld>,
     clock: Res<WorldClock>,
     settings: Res<InsolaSettings>,
     mut sky: ResMut<SkyState>,
+    mut today: Local<TodayKey>,
 ) {
     let Some(planet) = world.planet() else {
         return;
     };
-    *sky = SkyState::compute(planet, clock.elapsed_s(), &settings);
+    let mut state = SkyState::compute(planet, clock.world_time_s(), &settings);
+    let place = settings.reference_place_clamped();
+    let key = (
+        world.generation(),
+        state.local_day,
+        [place.latitude_rad.to_bits(), place.longitude_rad.to_bits()],
+    );
+    if today.key != Some(key) {
+        today.events = Some(planet.day_events(state.local_day, place));
+        today.key = Some(key);
+    }
+    state.today = today.events;
+    *sky = state;
 }

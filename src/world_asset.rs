@@ -6,7 +6,7 @@
 //! sky; a file that fails to parse or validate leaves the last good world running, logs the
 //! error and sends a [`WorldRejected`] message. Without an asset server (a headless server, a
 //! test) set the world directly with [`ActiveWorld::set_spec`] or
-//! [`InsolaPlugin::with_world_spec`](crate::InsolaPlugin::with_world_spec).
+//! [`InsolaPlugins::with_world_spec`](crate::InsolaPlugins::with_world_spec).
 
 use std::sync::Arc;
 
@@ -174,7 +174,7 @@ impl ActiveWorld {
         self.pending.push(PendingReport::Changed(cause));
     }
 
-    fn reject(&mut self, source: String, reason: String, field: Option<String>) {
+    pub(crate) fn reject(&mut self, source: String, reason: String, field: Option<String>) {
         let kept = match self.planet() {
             Some(p) => format!("keeping world `{}`", p.spec().name),
             None => "no world loaded yet".to_string(),
@@ -191,7 +191,7 @@ impl ActiveWorld {
 
 /// Applies loads and reloads of the followed [`WorldFile`] to the [`ActiveWorld`], and reports
 /// files that failed to load.
-pub fn apply_world_files(
+pub(crate) fn apply_world_files(
     mut events: MessageReader<AssetEvent<WorldFile>>,
     mut failures: MessageReader<AssetLoadFailedEvent<WorldFile>>,
     files: Res<Assets<WorldFile>>,
@@ -227,7 +227,7 @@ pub fn apply_world_files(
         if failure.id != id {
             continue;
         }
-        let (reason, field) = load_failure(&failure.path.to_string(), &failure.error);
+        let (reason, field) = load_failure(&failure.error);
         // When a reload fails, Bevy retries it as an untyped load, which fails the same way: a
         // failure that repeats the standing error is the same news and is not reported again.
         if world.last_error.as_deref() != Some(reason.as_str()) {
@@ -239,7 +239,7 @@ pub fn apply_world_files(
 /// A load failure in plain words, with the field at fault when the file was read but is not a
 /// valid world. Bevy's own wording (which may carry a captured backtrace) is kept to its first
 /// line for other failures.
-fn load_failure(path: &str, error: &AssetLoadError) -> (String, Option<String>) {
+fn load_failure(error: &AssetLoadError) -> (String, Option<String>) {
     if let AssetLoadError::AssetLoaderError(e) = error
         && let Some(ours) = e.error().downcast_ref::<WorldFileError>()
     {
@@ -247,14 +247,15 @@ fn load_failure(path: &str, error: &AssetLoadError) -> (String, Option<String>) 
             WorldFileError::Spec(spec) => spec.field().map(str::to_string),
             _ => None,
         };
-        return (format!("{path}: {ours}"), field);
+        // The path is the rejection's `source`; the reason is the fault alone.
+        return (ours.to_string(), field);
     }
     let text = error.to_string();
     (text.lines().next().unwrap_or_default().to_string(), None)
 }
 
 /// Sends the [`WorldChanged`] and [`WorldRejected`] messages queued by [`ActiveWorld`].
-pub fn report_world_changes(
+pub(crate) fn report_world_changes(
     mut world: ResMut<ActiveWorld>,
     mut changed: MessageWriter<WorldChanged>,
     mut rejected: MessageWriter<WorldRejected>,

@@ -4,6 +4,7 @@
 //! `cargo test` runs 200 years; the full 10,000 years is ignored by default (several minutes
 //! in a debug build): `cargo test --release --test long_runs -- --ignored`.
 
+#[path = "plugin/common/mod.rs"]
 mod common;
 
 use std::alloc::System;
@@ -81,7 +82,7 @@ fn run_years(years: u64) {
     let mut app = App::new();
     app.add_plugins(MinimalPlugins)
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_spec(spec(BRINDLE))
                 .with_reference_place(45.0, 0.0)
                 .with_clock_rate(year_s),

@@ -57,7 +57,7 @@ fn turn_the_light(time: Res<Time>, mut lights: Query<&mut Transform, With<Direct
 pub fn insola_scene_app() -> App {
     let mut app = bare_app();
     app.add_plugins(
-        InsolaPlugin::new()
+        InsolaPlugins::new()
             .with_world_spec(verdance())
             .with_reference_place(35.0, 0.0)
             .with_clock_rate(CLOCK_RATE),
@@ -131,7 +131,7 @@ fn touch_observers(mut observers: Query<(&SurfacePlace, &mut LocalConditions)>) 
 pub fn observers_app(n: usize) -> App {
     let mut app = bare_app();
     app.add_plugins(
-        InsolaPlugin::new()
+        InsolaPlugins::new()
             .with_world_spec(verdance())
             .with_clock_rate(CLOCK_RATE),
     );

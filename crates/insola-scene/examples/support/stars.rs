@@ -101,7 +101,7 @@ pub fn turn_star_field(
         return;
     };
     let place = settings.reference_place_clamped();
-    let instant = planet.star_instant(clock.elapsed_s());
+    let instant = planet.star_instant(clock.world_time_s());
     let local_sidereal = instant.sidereal_angle_rad + place.longitude_rad;
     let (sin_lat, cos_lat) = place.latitude_rad.sin_cos();
     let axis = |v: DVec3| {

@@ -42,7 +42,7 @@ pub fn planet(text: &str) -> Planet {
 #[derive(Resource, Default)]
 pub struct Collected(pub Vec<SkyNotice>);
 
-fn collect(mut reader: MessageReader<SkyNotice>, mut collected: ResMut<Collected>) {
+pub fn collect(mut reader: MessageReader<SkyNotice>, mut collected: ResMut<Collected>) {
     collected.0.extend(reader.read().copied());
 }
 
@@ -52,7 +52,7 @@ pub fn app(text: &str, settings: InsolaSettings, rate: f64, frame: Duration) -> 
     let mut app = App::new();
     app.add_plugins(MinimalPlugins)
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_spec(spec(text))
                 .with_settings(settings)
                 .with_clock_rate(rate),

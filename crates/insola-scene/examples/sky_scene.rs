@@ -15,7 +15,10 @@
 //! `W` next world, `L`/`K` latitude up/down 5°, arrows or left-drag to turn the camera,
 //! wheel or PageUp/PageDown to zoom.
 //!
-//! The plugin runs in top-of-atmosphere mode (`with_engine_atmosphere(true)`): Bevy's
+//! Photosensitivity: at high rates day and night would alternate several times a second; the
+//! plugin's flash guard (on) then shows the day's or the year's mean light instead.
+//!
+//! The plugin runs in top-of-atmosphere mode (`with_engine_atmosphere_from_world()`): Bevy's
 //! atmosphere dims and reddens each light itself, so Insola must not do it too.
 
 mod support;
@@ -32,7 +35,7 @@ use insola::Planet;
 use support::capture::{self, CapturePlugin, Shot};
 use support::{OrbitCamera, SceneOptions};
 
-const HELP: &str = "=/- faster/slower | Space pause | D +1 day | S +1 season | W next world | L/K latitude | arrows, drag: camera";
+const HELP: &str = "=/- faster/slower | Space pause | D +1 day | S +1 season | W next world | L/K latitude | arrows, drag: camera | fast rates show mean light (flash guard)";
 
 fn main() -> AppExit {
     let options = SceneOptions::from_args();
@@ -61,8 +64,8 @@ fn main() -> AppExit {
         .collect();
 
     let mut app = App::new();
-    let insola = InsolaPlugin::new()
-        .with_engine_atmosphere(true)
+    let insola = InsolaPlugins::new()
+        .with_engine_atmosphere_from_world()
         .with_reference_place(options.lat, 0.0)
         .with_clock_rate(options.rate)
         .with_start(WorldInstant::from_secs_f64(
@@ -106,9 +109,7 @@ fn main() -> AppExit {
         .add_systems(
             Update,
             (
-                support::follow_world_air,
                 rebuild_sundial,
-                support::size_star_disc,
                 support::update_status_line,
                 support::stars::turn_star_field,
             ),

@@ -1,6 +1,5 @@
 //! World files through the asset loader, hot reload, and a bad file keeping the last good world.
 
-mod common;
 
 use std::path::PathBuf;
 
@@ -8,8 +7,8 @@ use bevy::asset::{AssetServer, Assets};
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{WorldChangeCause, WorldFile};
-use common::assets::*;
-use common::*;
+use crate::common::assets::*;
+use crate::common::*;
 
 #[test]
 fn the_shipped_worlds_load_through_the_asset_loader() {

@@ -184,7 +184,7 @@ fn noon_is_bright_midnight_is_dark_and_shadows_point_away_from_the_star() {
     let mut app = App::new();
     app.add_plugins((capture::headless_plugins(), capture::runner()))
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_spec(spec)
                 .with_reference_place(LATITUDE_DEG, 0.0)
                 .with_start(WorldInstant::from_secs_f64(noon)),

@@ -1,13 +1,12 @@
 //! Observers at many places, their cadence, the map projection and the climate.
 
-mod common;
 
 use std::time::Duration;
 
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{MapProjection, ObserverInstant, ObserverInterval, PlaceFromPosition};
-use common::*;
+use crate::common::*;
 
 const FRAME: Duration = Duration::from_millis(16);
 
@@ -39,7 +38,7 @@ fn spawn_places(app: &mut App, places: &[(f64, f64)]) -> Vec<Entity> {
 fn observed_at(app: &App) -> f64 {
     app.world()
         .resource::<ObserverInstant>()
-        .t_s
+        .world_time_s
         .expect("observers have been updated")
 }
 
@@ -53,7 +52,7 @@ fn observers_get_the_cores_star_and_a_temperature() {
     for _ in 0..10 {
         app.update();
     }
-    let t = app.world().resource::<WorldClock>().elapsed_s();
+    let t = app.world().resource::<WorldClock>().world_time_s();
     assert_eq!(observed_at(&app), t);
     for (id, &(lat, lon)) in ids.iter().zip(&places) {
         let c = *app.world().get::<LocalConditions>(*id).unwrap();
@@ -123,7 +122,7 @@ fn cadence_in_world_seconds_and_moved_places() {
     *app.world_mut().get_mut::<SurfacePlace>(moved).unwrap() =
         SurfacePlace::from_degrees(-20.0, 0.0).unwrap();
     app.update();
-    let now = app.world().resource::<WorldClock>().elapsed_s();
+    let now = app.world().resource::<WorldClock>().world_time_s();
     assert_eq!(observed_at(&app), first);
     assert_eq!(
         *app.world().get::<LocalConditions>(still).unwrap(),
@@ -177,7 +176,7 @@ fn map_positions_become_places() {
         1e-4
     );
     let c = *app.world().get::<LocalConditions>(e).unwrap();
-    let t = app.world().resource::<WorldClock>().elapsed_s();
+    let t = app.world().resource::<WorldClock>().world_time_s();
     assert_approx_eq!(
         c.sin_star_altitude,
         planet(BRINDLE)

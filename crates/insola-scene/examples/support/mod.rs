@@ -1,6 +1,7 @@
 //! Scaffolding shared by the examples: the shipped worlds, command-line options for the
-//! rendering examples, a windowed or windowless app, an orbiting camera, Bevy's atmosphere
-//! made from a world's air, and the on-screen status line.
+//! rendering examples, a windowed or windowless app, an orbiting camera, and the on-screen
+//! status line. (Bevy's atmosphere made from a world's air is the plugin's
+//! `engine-atmosphere` part.)
 //!
 //! Each example uses part of it; the parts are small and independent.
 
@@ -15,8 +16,6 @@ use std::path::PathBuf;
 
 use bevy::camera::Exposure;
 use bevy::input::mouse::{AccumulatedMouseMotion, AccumulatedMouseScroll};
-use bevy::light::Atmosphere;
-use bevy::light::atmosphere::ScatteringMedium;
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{ActiveWorld, WorldFile};
@@ -204,84 +203,6 @@ pub fn orbit_camera_controls(
         orbit.pitch = (orbit.pitch + turn.y).clamp(-0.6, 1.5);
         orbit.distance = (orbit.distance * (1.0 + zoom)).clamp(3.0, 200.0);
         *transform = orbit.transform();
-    }
-}
-
-/// Bevy's scattering medium for a world's air: Bevy's Earth-like medium with the Rayleigh
-/// terms scaled by the surface pressure and the world's Rayleigh factor, and the haze by its
-/// turbidity. `None` for an airless world.
-pub fn scattering_medium(planet: &Planet) -> Option<ScatteringMedium> {
-    let air = &planet.atmosphere();
-    if air.is_airless() {
-        return None;
-    }
-    let rayleigh = (air.surface_pressure_kpa / insola::light::REFERENCE_PRESSURE_KPA
-        * air.rayleigh_scale) as f32;
-    // Bevy's Earth haze stands for a clear sky (turbidity about 0.05).
-    let haze = (air.aerosol_angstrom_beta / 0.05) as f32;
-    let mut medium = ScatteringMedium::earth(256, 256);
-    if let Some(term) = medium.terms.get_mut(0) {
-        term.scattering *= rayleigh;
-    }
-    if let Some(term) = medium.terms.get_mut(1) {
-        term.scattering *= haze;
-        term.absorption *= haze;
-    }
-    if let Some(term) = medium.terms.get_mut(2) {
-        term.absorption *= rayleigh;
-    }
-    Some(medium.with_label("insola_world_air"))
-}
-
-/// Marks the entity holding Bevy's [`Atmosphere`].
-#[derive(Component)]
-pub struct WorldAir;
-
-/// Keeps one [`Atmosphere`] entity matching the active world's air (rebuilt when the world
-/// changes; removed on an airless world).
-pub fn follow_world_air(
-    mut commands: Commands,
-    mut changed: MessageReader<bevy_insola::WorldChanged>,
-    world: Res<ActiveWorld>,
-    air: Query<Entity, With<WorldAir>>,
-    mut media: ResMut<Assets<ScatteringMedium>>,
-) {
-    if changed.read().count() == 0 {
-        return;
-    }
-    let Some(planet) = world.planet() else {
-        return;
-    };
-    for entity in &air {
-        commands.entity(entity).despawn();
-    }
-    if let Some(medium) = scattering_medium(planet) {
-        let radius_m = (planet.body().radius_km * 1000.0) as f32;
-        commands.spawn((
-            Atmosphere {
-                inner_radius: radius_m,
-                outer_radius: radius_m + 100_000.0,
-                ground_albedo: Vec3::splat(0.3),
-                medium: media.add(medium),
-            },
-            WorldAir,
-        ));
-    }
-}
-
-/// Gives star lights a visible disc the size of the star as seen from the world.
-pub fn size_star_disc(
-    sky: Res<SkyState>,
-    mut discs: Query<&mut bevy::light::SunDisk, With<StarLight>>,
-) {
-    if !sky.ready {
-        return;
-    }
-    let size = (2.0 * sky.star.angular_radius_rad) as f32;
-    for mut disc in &mut discs {
-        if disc.angular_size != size {
-            disc.angular_size = size;
-        }
     }
 }
 

@@ -20,7 +20,7 @@ fn main() {
     App::new()
         .add_plugins(DefaultPlugins)
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_file(support::world_asset_path("tessaly-reach"))
                 // Four world days per real second: a year in a little over a minute.
                 .with_clock_rate(4.0 * 21.0 * 3600.0),

@@ -1,6 +1,5 @@
 //! Star and moon lights, ambient light and attenuation modes in a headless app.
 
-mod common;
 
 use std::time::Duration;
 
@@ -8,7 +7,7 @@ use bevy::color::LinearRgba;
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{LightAttenuation, relative_luminance};
-use common::*;
+use crate::common::*;
 use insola::Place;
 use insola::lighting::LightMode;
 

@@ -33,7 +33,7 @@ pub fn asset_app(root: &std::path::Path, world_file: &str) -> App {
             watch_for_changes_override: Some(false),
             ..default()
         })
-        .add_plugins(InsolaPlugin::new().with_world_file(world_file))
+        .add_plugins(InsolaPlugins::new().with_world_file(world_file))
         .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_millis(
             16,
         )))

@@ -62,7 +62,7 @@ fn world_tuner_window(
     let mut spec = planet.spec().clone();
     let mut changed = false;
     let place = settings.reference_place_clamped();
-    let t = clock.elapsed_s();
+    let t = clock.world_time_s();
 
     // On the right, below the status line; scrolls when the window is short.
     egui::Window::new("World tuner")

@@ -9,7 +9,7 @@ fn main() {
         .add_plugins(DefaultPlugins)
         // 3000 world seconds per real second: a 26-hour Verdance day in about 31 s.
         .add_plugins(
-            InsolaPlugin::new()
+            InsolaPlugins::new()
                 .with_world_file("worlds/verdance.world.ron")
                 .with_clock_rate(3000.0),
         )
