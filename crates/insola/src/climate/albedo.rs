@@ -19,7 +19,7 @@
 //! water is never brighter than ice.
 //!
 //! The default `R = 0.26` gives an Earth-like world (Sun-like star, 1 AU, 23.44° tilt) a
-//! global planetary albedo of about 0.29 (Earth's Bond albedo is about 0.3; from memory); its
+//! global ice-free albedo of about 0.28–0.29 (Earth's Bond albedo is about 0.3; from memory); its
 //! latitude contrast comes from the sky alone, so a high-tilt world whose poles see a high
 //! summer sun gets dark, warm poles.
 
@@ -38,7 +38,17 @@ pub const LEGACY_ALBEDO_A0: f64 = 0.33;
 /// seasonal value; kept so older world files read as before).
 pub const LEGACY_ALBEDO_A2: f64 = 0.25;
 
-/// How the ice-free albedo of each latitude band is set (see the [module docs](self)).
+/// How the ice-free albedo of each latitude band is set.
+///
+/// The sky law ([`IceFreeAlbedo::FromSky`], the default) gives each band the planetary albedo
+/// [`sky_albedo`] at its insolation-weighted mean cosine of the solar zenith angle over the year
+/// ([`insolation_weighted_cos_zenith`]; the choice Cronin 2014, J. Atmos. Sci. 71, 2994, shows
+/// comes closest to the mean absorbed sunlight): the clear-sky ocean albedo of Briegleb et al.
+/// (1986) seen through an atmosphere reflecting `atmosphere_albedo`, capped at the ice albedo.
+/// The default 0.26 gives an Earth-like world (Sun-like star, 1 AU, 23.44° tilt) a global
+/// ice-free albedo of about 0.28–0.29 (Earth's Bond albedo is about 0.3; from memory); the latitude
+/// contrast comes from the sky alone, so a high-tilt world whose poles see a high summer sun
+/// gets dark, warm poles.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub enum IceFreeAlbedo {
     /// From the world's own sky: the ocean albedo of Briegleb et al. (1986) at each band's

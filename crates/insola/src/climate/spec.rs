@@ -205,7 +205,7 @@ impl ClimateSpec {
             0.0,
             100.0,
         )?;
-        self.ice_free_albedo.validate(&f)?;
+        self.ice_free_albedo.validate(f)?;
         check_range(&f("ice_albedo"), self.ice_albedo, 0.0, 1.0)?;
         check_range(
             &f("ice_temperature_c"),
