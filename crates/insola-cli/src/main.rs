@@ -33,7 +33,7 @@ enum Command {
     Sky(commands::sky::Args),
     /// Rise, set, transit and twilights of one local day.
     Day(commands::day::Args),
-    /// One row per day of the year: day length, noon altitude, daily insolation.
+    /// One row per day of the year: daylight, noon altitude, daily insolation.
     Year(commands::year::Args),
     /// List the invented worlds built into this command.
     Worlds(commands::list::Args),

@@ -142,7 +142,7 @@ fn climate_text_and_sweep() {
 fn map_writes_png_and_csv() {
     for (world, q) in [
         ("verdance", "temperature"),
-        ("oromar", "daylength"),
+        ("oromar", "daylight"),
         ("tessaly-reach", "insolation"),
     ] {
         let png = tmp(&format!("{world}-{q}.png"));
@@ -320,9 +320,101 @@ fn check_sky_and_day_json_fields() {
             "sunset_h",
             "transit_h",
             "day_length_h",
+            "daylight_h",
             "polar",
         ],
     );
+    // One name each: `day_length_h` is the local solar day (Verdance: 26 h), `daylight_h`
+    // the time the star is up.
+    assert!(
+        (d["day_length_h"].as_f64().unwrap() - 26.0).abs() < 0.01,
+        "{d}"
+    );
+    assert!(d["daylight_h"].as_f64().unwrap() < 26.0, "{d}");
     fails_cleanly(&["sky", "verdance", "--lat", "95", "--day", "1"]);
     fails_cleanly(&["day", "verdance", "--lat", "10"]);
+}
+
+#[test]
+fn year_csv_names_daylight() {
+    let out = insola(&["year", "verdance", "--lat", "40", "--csv"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let text = String::from_utf8_lossy(&out.stdout);
+    let header = text.lines().next().unwrap();
+    assert!(
+        header.contains("daylight_h") && !header.contains("day_length"),
+        "{header}"
+    );
+}
+
+#[test]
+fn check_names_the_albedo_law_and_local_season_lengths() {
+    let v = json(&["check", "tessaly-reach", "--json"]);
+    has(
+        &v,
+        &[
+            "albedo_law",
+            "season_lengths_local_days",
+            "season_lengths_days",
+        ],
+    );
+    assert_eq!(v["albedo_law"], "sky", "{v}");
+    // Tessaly Reach: 290 standard days, 21 h solar day: a season in local days is the
+    // standard-day length × 24/21 (arithmetic).
+    let std0 = v["season_lengths_days"][0].as_f64().unwrap();
+    let local0 = v["season_lengths_local_days"][0].as_f64().unwrap();
+    assert!((local0 - std0 * 24.0 / 21.0).abs() < 1e-6, "{v}");
+    let earth = json(&["check", "earth-reference", "--json"]);
+    assert_eq!(earth["albedo_law"], "latitude", "{earth}");
+    assert!(
+        earth["warnings"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .all(|w| !w.as_str().unwrap().contains("albedo_a2")),
+        "{earth}"
+    );
+}
+
+#[test]
+fn check_warns_when_the_latitude_term_contradicts_the_tilt() {
+    // An invented 64°-tilt world given Earth's latitude term (poles brighter): its poles see
+    // a higher sun over the year than its equator, so the term is the wrong way round.
+    let path = tmp("brackwater.world.ron");
+    std::fs::write(
+        &path,
+        r#"(name: "Brackwater", star: (temperature_k: 5772, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
+            orbit: (semi_major_axis_au: 1.0, eccentricity: 0.16, periapsis_longitude_deg: 0, period_days: 300),
+            spin: (obliquity_deg: 64, solar_day_hours: 30),
+            climate: (albedo_a0: 0.33, albedo_a2: 0.25))"#,
+    )
+    .unwrap();
+    let out = insola(&["check", path.to_str().unwrap()]);
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(out.status.success(), "{text}");
+    assert!(text.contains("explicit latitude term"), "{text}");
+    assert!(
+        text.contains("warning: climate: albedo_a2 = 0.25"),
+        "{text}"
+    );
+}
+
+#[test]
+fn climate_header_ice_summary_agrees_with_the_table() {
+    for world in ["verdance", "earth-reference", "oromar", "tessaly-reach"] {
+        let v = json(&["climate", world, "--json"]);
+        let bands = v["bands"].as_array().unwrap();
+        for (north, key) in [(true, "north"), (false, "south")] {
+            let iced = bands.iter().any(|b| {
+                (b["lat_deg"].as_f64().unwrap() >= 0.0) == north
+                    && b["ice_fraction"].as_f64().unwrap() > 0.0
+            });
+            let reach = &v["seasonal_ice_reach_lat_deg"][key];
+            assert_eq!(iced, !reach.is_null(), "{world} {key}: {reach}");
+        }
+    }
 }

@@ -1,6 +1,7 @@
 //! `insola check WORLD`: validate and print derived facts and warnings.
 
 use insola::Planet;
+use insola::climate::{IceFreeAlbedo, insolation_weighted_cos_zenith};
 use insola::constants::SECONDS_PER_DAY;
 use serde::Serialize;
 
@@ -39,6 +40,16 @@ pub struct Facts {
     pub zones_overlap: bool,
     /// Lengths of the northern spring, summer, autumn and winter in standard days.
     pub season_lengths_days: [f64; 4],
+    /// The same in the world's own mean solar days (null when tidally locked).
+    pub season_lengths_local_days: Option<[f64; 4]>,
+    /// Ice-free albedo law of the climate: `"sky"` (from the world's own sky, the default) or
+    /// `"latitude"` (explicit `albedo_a0`/`albedo_a2`).
+    pub albedo_law: String,
+    /// Ice-free albedo the sky law gives this world at the equator and at the poles, whatever
+    /// law the world uses (dimensionless).
+    pub sky_albedo_equator_pole: [f64; 2],
+    /// Ice-free albedo the world's own law gives at the equator and at the poles.
+    pub albedo_equator_pole: [f64; 2],
     /// Flux at the mean distance, W m⁻².
     pub flux_at_mean_distance_w_m2: f64,
     /// Ratio of the flux at periapsis to the flux at apoapsis.
@@ -90,7 +101,12 @@ pub fn facts(p: &Planet) -> Facts {
             "tidally locked: the star stands still in the sky apart from a small wobble".into(),
         );
     }
+    let albedo = albedo_facts(p);
+    if let Some(w) = &albedo.warning {
+        warnings.push(w.clone());
+    }
     let days = |x: f64| x / SECONDS_PER_DAY;
+    let local = |x: f64| x / p.spin().solar_day_s;
     Facts {
         name: spec.name.clone(),
         solar_day_h: (!locked).then(|| p.spin().solar_day_s / 3600.0),
@@ -108,6 +124,17 @@ pub fn facts(p: &Planet) -> Facts {
             days(s.autumn_s),
             days(s.winter_s),
         ],
+        season_lengths_local_days: (!locked).then(|| {
+            [
+                local(s.spring_s),
+                local(s.summer_s),
+                local(s.autumn_s),
+                local(s.winter_s),
+            ]
+        }),
+        albedo_law: albedo.law.to_string(),
+        sky_albedo_equator_pole: albedo.sky,
+        albedo_equator_pole: albedo.own,
         flux_at_mean_distance_w_m2: p.flux_at_mean_distance_w_m2(),
         flux_swing_ratio: swing,
         star_angular_diameter_deg: 2.0
@@ -116,6 +143,64 @@ pub fn facts(p: &Planet) -> Facts {
                 .to_degrees(),
         standard_rise_altitude_deg: p.standard_rise_altitude_rad().to_degrees(),
         warnings,
+    }
+}
+
+/// What `check` says about the ice-free albedo.
+struct AlbedoFacts {
+    law: &'static str,
+    /// The sky law's albedo at the equator and at the poles.
+    sky: [f64; 2],
+    /// The world's own law's albedo at the equator and at the poles.
+    own: [f64; 2],
+    warning: Option<String>,
+}
+
+/// The sky law at the equator and the poles of `p`, and a warning when an explicit latitude
+/// law makes the poles brighter where the sky makes them darker (or the reverse).
+fn albedo_facts(p: &Planet) -> AlbedoFacts {
+    let spec = p.climate_spec();
+    let forcing = p.annual_forcing(360);
+    let days: Vec<(f64, f64)> = forcing
+        .samples
+        .iter()
+        .map(|s| (s.declination_rad, s.distance_factor))
+        .collect();
+    let mu = |lat: f64| insolation_weighted_cos_zenith(lat, &days);
+    let (mu_eq, mu_pole) = (mu(0.0), mu(std::f64::consts::FRAC_PI_2));
+    let sky_law = match spec.ice_free_albedo {
+        IceFreeAlbedo::FromSky { .. } => spec.ice_free_albedo,
+        IceFreeAlbedo::Legendre { .. } => IceFreeAlbedo::default(),
+    };
+    let at = |law: IceFreeAlbedo| {
+        [
+            law.albedo(0.0, mu_eq, spec.ice_albedo),
+            law.albedo(1.0, mu_pole, spec.ice_albedo),
+        ]
+    };
+    let (sky, own) = (at(sky_law), at(spec.ice_free_albedo));
+    // Differences under 0.02 in albedo change a band's sunlight by under 3%: not worth a word.
+    let (sky_diff, own_diff) = (sky[1] - sky[0], own[1] - own[0]);
+    let contradicts = own_diff.abs() > 0.02 && own_diff * sky_diff < 0.0;
+    let warning = match spec.ice_free_albedo {
+        IceFreeAlbedo::Legendre { a2, .. } if contradicts => Some(format!(
+            "climate: albedo_a2 = {a2} makes the poles {} than the equator (albedo {:.2} against {:.2}), but at {:.1}° tilt this world's poles see a {} sun over the year than its equator (its sky gives {:.2} against {:.2}); expect poles too {}. Remove albedo_a0/albedo_a2 to let the albedo follow the sky.",
+            if own_diff > 0.0 { "brighter" } else { "darker" },
+            own[1],
+            own[0],
+            p.spec().spin.obliquity_deg,
+            if sky_diff < 0.0 { "higher" } else { "lower" },
+            sky[1],
+            sky[0],
+            if own_diff > 0.0 { "cold" } else { "warm" },
+        )),
+        _ => None,
+    };
+    AlbedoFacts {
+        law: spec.ice_free_albedo.name(),
+        sky,
+        own,
+        warning,
     }
 }
 
@@ -150,7 +235,23 @@ pub fn run(args: Args) -> Result<(), String> {
     say!("  tropics          ±{:.2}°", f.tropic_lat_deg);
     say!("  polar circles    ±{:.2}°", f.polar_circle_lat_deg);
     let [a, b, c, d] = f.season_lengths_days;
-    say!("  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d");
+    say!(
+        "  seasons (north)  spring {a:.1} d, summer {b:.1} d, autumn {c:.1} d, winter {d:.1} d (standard days of 24 h)"
+    );
+    if let Some([a, b, c, d]) = f.season_lengths_local_days {
+        say!(
+            "                   spring {a:.1}, summer {b:.1}, autumn {c:.1}, winter {d:.1} local days"
+        );
+    }
+    let ([eq, pole], [sky_eq, sky_pole]) = (f.albedo_equator_pole, f.sky_albedo_equator_pole);
+    match f.albedo_law.as_str() {
+        "sky" => say!(
+            "  albedo law       from the sky (ice-free albedo {eq:.2} at the equator, {pole:.2} at the poles)"
+        ),
+        _ => say!(
+            "  albedo law       explicit latitude term albedo_a0/albedo_a2 ({eq:.2} at the equator, {pole:.2} at the poles; the sky law would give {sky_eq:.2} and {sky_pole:.2})"
+        ),
+    }
     say!(
         "  flux             {:.1} W/m² at mean distance ({:.2}× swing over the orbit)",
         f.flux_at_mean_distance_w_m2,

@@ -72,6 +72,13 @@ pub struct ClimateReport {
     pub ice_area_fraction: f64,
     /// Ice edges from the annual-mean temperature.
     pub ice_edge_lat_deg: IceEdgeReport,
+    /// Per hemisphere, the latitude of the band nearest the equator that is iced for any part
+    /// of the year (the table's `ice%` above zero), degrees; null when the hemisphere never
+    /// ices.
+    pub seasonal_ice_reach_lat_deg: IceEdgeReport,
+    /// Ice-free albedo law: `"sky"` (from the world's sky) or `"latitude"` (explicit
+    /// `albedo_a0`/`albedo_a2`).
+    pub albedo_law: String,
     /// Model years run until the year repeated (or until giving up).
     pub years_to_equilibrium: u32,
     /// Whether the year repeated within the tolerance.
@@ -121,6 +128,21 @@ pub fn cycle_of(p: &Planet) -> Result<ClimateCycle, String> {
     }
 }
 
+/// Per hemisphere, the band nearest the equator with any ice over the year, degrees.
+fn seasonal_reach(c: &ClimateCycle) -> IceEdgeReport {
+    let iced = |north: bool| {
+        c.band_stats()
+            .iter()
+            .filter(|s| s.ice_fraction_of_year > 0.0 && (s.lat_rad >= 0.0) == north)
+            .map(|s| s.lat_rad.to_degrees())
+            .min_by(|a, b| a.abs().total_cmp(&b.abs()))
+    };
+    IceEdgeReport {
+        north: iced(true),
+        south: iced(false),
+    }
+}
+
 fn edges(c: &ClimateCycle) -> IceEdgeReport {
     let e = c.ice_edges();
     IceEdgeReport {
@@ -152,6 +174,8 @@ pub fn report(p: &Planet, c: &ClimateCycle) -> ClimateReport {
         global_mean_c: c.global_mean_c(),
         ice_area_fraction: c.ice_area_fraction(),
         ice_edge_lat_deg: edges(c),
+        seasonal_ice_reach_lat_deg: seasonal_reach(c),
+        albedo_law: c.spec().ice_free_albedo.name().to_string(),
         years_to_equilibrium: c.years_to_equilibrium(),
         converged: c.converged(),
         residual_k: c.residual_k(),
@@ -284,9 +308,15 @@ pub fn run(args: Args) -> Result<(), String> {
         r.obliquity_deg
     );
     say!(
-        "  global mean {:.1} °C, ice {:.0}% of area-year, ice edges N {} S {}",
+        "  global mean {:.1} °C, ice {:.0}% of area-year ({} albedo law)",
         r.global_mean_c,
         100.0 * r.ice_area_fraction,
+        r.albedo_law
+    );
+    say!(
+        "  ice some of the year from N {} S {} (band nearest the equator); annual-mean ice edge N {} S {}",
+        opt_deg(r.seasonal_ice_reach_lat_deg.north),
+        opt_deg(r.seasonal_ice_reach_lat_deg.south),
         opt_deg(r.ice_edge_lat_deg.north),
         opt_deg(r.ice_edge_lat_deg.south)
     );

@@ -23,7 +23,7 @@ pub const SUNLIGHT: Ramp = Ramp(&[
     (1.0, [252, 243, 200]),
 ]);
 
-/// Day length: deep night blue through dusk blue and grey-teal to pale daylight yellow.
+/// Daylight: deep night blue through dusk blue and grey-teal to pale daylight yellow.
 /// Lightness rises monotonically.
 pub const DAYLIGHT: Ramp = Ramp(&[
     (0.0, [10, 14, 44]),

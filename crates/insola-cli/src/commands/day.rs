@@ -32,7 +32,7 @@ pub struct DayReport {
     /// Local day number.
     pub day: i64,
     /// Length of the local (mean solar) day, hours.
-    pub local_day_h: f64,
+    pub day_length_h: f64,
     /// Rise of the star's upper limb (standard altitude), local hours; null if none.
     pub sunrise_h: Option<f64>,
     /// Set, local hours; null if none.
@@ -41,8 +41,8 @@ pub struct DayReport {
     pub transit_h: Option<f64>,
     /// Altitude at transit, degrees.
     pub transit_altitude_deg: Option<f64>,
-    /// Time the star is up during this local day, hours.
-    pub day_length_h: f64,
+    /// Daylight: time the star is up during this local day, hours.
+    pub daylight_h: f64,
     /// "day" (never sets), "night" (never rises) or null.
     pub polar: Option<Polar>,
     /// Civil dawn (−6°), local hours.
@@ -68,12 +68,12 @@ pub fn report(day: i64, ev: &DayEvents) -> DayReport {
     let (astronomical_dawn_h, astronomical_dusk_h) = pair(&ev.astronomical);
     DayReport {
         day,
-        local_day_h: ev.day_length_s / 3600.0,
+        day_length_h: ev.day_length_s / 3600.0,
         sunrise_h: h(ev.sunlight.rise_s),
         sunset_h: h(ev.sunlight.set_s),
         transit_h: h(ev.transit_s),
         transit_altitude_deg: ev.transit_altitude_rad.map(f64::to_degrees),
-        day_length_h: ev.sunlight.time_above_s / 3600.0,
+        daylight_h: ev.sunlight.time_above_s / 3600.0,
         polar: ev.sunlight.polar,
         civil_dawn_h,
         civil_dusk_h,
@@ -126,7 +126,7 @@ pub fn run(args: Args) -> Result<(), String> {
         lat,
         args.at.lon,
         day,
-        r.local_day_h
+        r.day_length_h
     );
     match r.polar {
         Some(Polar::Day) => say!("  the star never sets (polar day)"),
@@ -141,7 +141,7 @@ pub fn run(args: Args) -> Result<(), String> {
     if let Some(a) = r.transit_altitude_deg {
         say!("  transit altitude {a:.2}°");
     }
-    say!("  star up for {}", hm(Some(r.day_length_h)));
+    say!("  daylight {} (star up)", hm(Some(r.daylight_h)));
     say!(
         "  civil twilight        {} – {}",
         hm(r.civil_dawn_h),

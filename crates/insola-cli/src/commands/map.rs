@@ -1,4 +1,4 @@
-//! `insola map WORLD --quantity insolation|daylength|temperature --png FILE [--csv FILE]`:
+//! `insola map WORLD --quantity insolation|daylight|temperature --png FILE [--csv FILE]`:
 //! a latitude × time-of-year heat map.
 //!
 //! The picture is always 960 × 540 px: title, a 720 × 380 px map (latitude −90° at the bottom,
@@ -9,7 +9,7 @@
 //!
 //! Quantities:
 //! * `insolation` — daily-mean sunlight at the top of the atmosphere, W/m² (Berger 1978).
-//! * `daylength` — hours of the solar day with the star's centre above the standard rise
+//! * `daylight` — hours of the solar day with the star's centre above the standard rise
 //!   altitude, from `cos H0 = (sin h0 − sin φ sin δ)/(cos φ cos δ)` with the declination held for
 //!   the whole day. For slow rotators whose day is a sizeable part of the year the declination
 //!   moves during the day and the real value differs (use `insola day` for exact events).
@@ -37,8 +37,8 @@ use super::colour_map::{
 pub enum Quantity {
     /// Daily-mean top-of-atmosphere insolation, W/m².
     Insolation,
-    /// Day length, hours.
-    Daylength,
+    /// Daylight (time the star is up), hours.
+    Daylight,
     /// Zonal-mean surface temperature from the climate model, °C.
     Temperature,
 }
@@ -125,7 +125,7 @@ pub fn sample(p: &Planet, q: Quantity, n_lat: usize, n_time: usize) -> Result<Fi
                 &mut values,
             );
         }
-        Quantity::Daylength => {
+        Quantity::Daylight => {
             let h0 = p.standard_rise_altitude_rad();
             let day_h = if p.spin().is_tidally_locked() {
                 // No solar day: the star stays where it is; show 24 h or 0 as up or down.
@@ -203,7 +203,7 @@ fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
                 hi: round_up(hi.max(1.0), 50.0),
             },
         },
-        Quantity::Daylength => {
+        Quantity::Daylight => {
             let day_h = if p.spin().is_tidally_locked() {
                 24.0
             } else {
@@ -212,7 +212,7 @@ fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
             Style {
                 title: format!("{name}: length of daylight"),
                 unit: "hours",
-                column: "day_length_h",
+                column: "daylight_h",
                 note: "Star above the standard rise altitude; declination held over each day (rough for slow rotators).",
                 scale: Scale::Linear {
                     ramp: DAYLIGHT,
@@ -539,7 +539,7 @@ pub fn run(args: Args) -> Result<(), String> {
         .fold(f64::NEG_INFINITY, f64::max);
     let quantity = match args.quantity {
         Quantity::Insolation => "insolation",
-        Quantity::Daylength => "daylength",
+        Quantity::Daylight => "daylight",
         Quantity::Temperature => "temperature",
     };
     if args.json {

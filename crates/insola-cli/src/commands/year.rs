@@ -24,8 +24,8 @@ pub struct YearRow {
     pub day: i64,
     /// Fraction of the year at the day's start.
     pub year_fraction: f64,
-    /// Time the star is up, hours.
-    pub day_length_h: f64,
+    /// Daylight: time the star is up, hours.
+    pub daylight_h: f64,
     /// Altitude at transit (or the highest sampled altitude when there is no transit), degrees.
     pub noon_altitude_deg: f64,
     /// Mean top-of-atmosphere insolation over the local day, W m⁻².
@@ -55,7 +55,7 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
             YearRow {
                 day,
                 year_fraction: (ev.day_start_s / p.year_s()).rem_euclid(1.0),
-                day_length_h: ev.sunlight.time_above_s / 3600.0,
+                daylight_h: ev.sunlight.time_above_s / 3600.0,
                 noon_altitude_deg: ev.transit_altitude_rad.unwrap_or(best).to_degrees(),
                 insolation_w_m2: sum / INSOLATION_SAMPLES as f64,
             }
@@ -72,13 +72,13 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&rows);
     }
     if args.csv {
-        say!("day,year_fraction,day_length_h,noon_altitude_deg,insolation_w_m2");
+        say!("day,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2");
         for r in &rows {
             say!(
                 "{},{:.6},{:.4},{:.4},{:.3}",
                 r.day,
                 r.year_fraction,
-                r.day_length_h,
+                r.daylight_h,
                 r.noon_altitude_deg,
                 r.insolation_w_m2
             );
@@ -99,7 +99,7 @@ pub fn run(args: Args) -> Result<(), String> {
             "{:>6} {:>8.4} {:>10} {:>12.2} {:>12.1}",
             r.day,
             r.year_fraction,
-            super::output::hm(Some(r.day_length_h)),
+            super::output::hm(Some(r.daylight_h)),
             r.noon_altitude_deg,
             r.insolation_w_m2
         );

@@ -54,6 +54,8 @@ pub struct ClimateCycle {
     pub(crate) converged: bool,
     pub(crate) stats: Vec<BandStats>,
     pub(crate) phases: Vec<BandPhase>,
+    /// Ice-free albedo of each band as the model used it (dimensionless).
+    pub(crate) ice_free_albedo: Vec<f64>,
 }
 
 impl ClimateCycle {
@@ -65,6 +67,7 @@ impl ClimateCycle {
         steps: usize,
         temps_c: Vec<f64>,
         run: RunOutcome,
+        ice_free_albedo: Vec<f64>,
     ) -> Self {
         let nb = grid.len();
         let ice = |t: f64| spec.ice_enabled && t < spec.ice_temperature_c;
@@ -100,7 +103,20 @@ impl ClimateCycle {
             converged: run.converged,
             stats,
             phases,
+            ice_free_albedo,
         }
+    }
+
+    /// Ice-free albedo of each band, south to north (dimensionless), as the model used it:
+    /// from the world's sky or from the explicit latitude law (see [`super::IceFreeAlbedo`]).
+    pub fn ice_free_albedo(&self) -> &[f64] {
+        &self.ice_free_albedo
+    }
+
+    /// Ice-free albedo at `sin(latitude) = x`, linear in `x` between band centres.
+    pub fn ice_free_albedo_at_x(&self, x: f64) -> f64 {
+        let (i0, i1, w) = self.grid.interpolation_x(x);
+        ((1.0 - w) * self.ice_free_albedo[i0] + w * self.ice_free_albedo[i1]).clamp(0.0, 1.0)
     }
 
     /// Zonal-mean temperature at latitude `lat_rad` and `year_fraction` (wrapped into [0, 1)),

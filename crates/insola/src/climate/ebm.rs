@@ -12,6 +12,7 @@
 //! factorised once and every step is one forward and one backward sweep. The scheme is stable
 //! for any heat capacity (including zero) and any step length.
 
+use super::albedo::IceFreeAlbedo;
 use super::forcing::BandInsolation;
 use super::grid::ClimateGrid;
 use super::spec::ClimateSpec;
@@ -78,7 +79,7 @@ pub struct EnergyBalanceModel {
     pub(crate) heat_capacity: f64,
     /// Step length, s.
     pub(crate) dt_s: f64,
-    /// Ice-free co-albedo `1 − (a0 + a2 P2)` per band.
+    /// Ice-free co-albedo `1 − α` per band (see [`IceFreeAlbedo`]).
     coalbedo_free: Vec<f64>,
     /// Ice co-albedo `1 − ice_albedo`.
     coalbedo_ice: f64,
@@ -105,6 +106,28 @@ pub const LIMB_MATCH_C: f64 = 60.0;
 
 /// Absolute zero, °C.
 const ABSOLUTE_ZERO_C: f64 = -273.15;
+
+/// Ice-free albedo of each band under `spec`'s law. The sky law needs the zenith angles of a
+/// table built from an orbit; an idealised table with it is an error naming
+/// `climate.atmosphere_albedo`.
+pub fn band_ice_free_albedo(
+    spec: &ClimateSpec,
+    grid: &ClimateGrid,
+    insolation: &BandInsolation,
+) -> Result<Vec<f64>, SpecError> {
+    let xs = grid.x_centres();
+    match (spec.ice_free_albedo, insolation.mean_cos_zenith()) {
+        (IceFreeAlbedo::FromSky { .. }, None) => Err(SpecError::inconsistent(
+            "climate.atmosphere_albedo",
+            "the sky albedo law needs the star's path, which an idealised insolation table does not carry; give albedo_a0 and albedo_a2 instead",
+        )),
+        (law, mu) => Ok(xs
+            .iter()
+            .enumerate()
+            .map(|(j, &x)| law.albedo(x, mu.map_or(0.0, |m| m[j]), spec.ice_albedo))
+            .collect()),
+    }
+}
 
 impl EnergyBalanceModel {
     /// Sets up the model; validates the spec (errors name `climate.*` fields) and checks that
@@ -143,10 +166,9 @@ impl EnergyBalanceModel {
         let diag_steady: Vec<f64> = (0..n).map(|j| b + k[j] + k[j + 1]).collect();
         let c_dt = heat_capacity / dt_s;
         let diag_step: Vec<f64> = diag_steady.iter().map(|d| d + c_dt).collect();
-        let coalbedo_free = grid
-            .x_centres()
+        let coalbedo_free = band_ice_free_albedo(spec, &grid, &insolation)?
             .iter()
-            .map(|&x| 1.0 - spec.ice_free_albedo(x))
+            .map(|a| 1.0 - a)
             .collect();
         let match_k = LIMB_MATCH_C + 273.15;
         let limb_emissivity = (spec.olr_a_w_m2 + spec.olr_b_w_m2_per_k * LIMB_MATCH_C)
@@ -188,6 +210,11 @@ impl EnergyBalanceModel {
             dt_s,
             coalbedo_free,
         })
+    }
+
+    /// Ice-free albedo of each band (dimensionless), as the model uses it.
+    pub fn ice_free_albedo(&self) -> Vec<f64> {
+        self.coalbedo_free.iter().map(|c| 1.0 - c).collect()
     }
 
     /// The latitude grid.
@@ -368,7 +395,7 @@ mod tests {
 
     #[test]
     fn longwave_limb_only_outside_the_linear_range() {
-        let spec = ClimateSpec::default();
+        let spec = ClimateSpec::climlab_seasonal();
         let grid = ClimateGrid::new(spec.bands).unwrap();
         let forcing = crate::climate::AnnualForcing {
             s0_w_m2: 1361.0,
@@ -419,8 +446,7 @@ mod tests {
         // D 0.555: T(x) = [(1 − a0) S0/4 (1 + s2 P2(x)/(1 + 6D/B)) − A]/B. The listed values are
         // computed from that formula (regression): 25.213, 17.144, 9.076, 1.008, −7.060 °C.
         let spec = ClimateSpec {
-            albedo_a0: 0.3,
-            albedo_a2: 0.0,
+            ice_free_albedo: IceFreeAlbedo::legendre(0.3, 0.0),
             ice_enabled: false,
             ..ClimateSpec::climlab_defaults()
         };
@@ -459,8 +485,8 @@ mod tests {
         // Uniform forcing and uniform start: diffusion does nothing, every band relaxes alike.
         let spec = ClimateSpec {
             ice_enabled: false,
-            albedo_a2: 0.0,
-            ..ClimateSpec::default()
+            ice_free_albedo: IceFreeAlbedo::legendre(0.33, 0.0),
+            ..ClimateSpec::climlab_seasonal()
         };
         let grid = ClimateGrid::new(spec.bands).unwrap();
         let ins = BandInsolation::from_fn(&grid, 50, 3.15e7, |_, _| 300.0).unwrap();

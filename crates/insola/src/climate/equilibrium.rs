@@ -132,6 +132,7 @@ pub fn equilibrate_model(
                     residual_k: residual,
                     converged: true,
                 },
+                model.ice_free_albedo(),
             ));
         }
         let ice = trajectory.iter().filter(|&&t| model.is_ice(t)).count();
@@ -154,6 +155,7 @@ pub fn equilibrate_model(
             residual_k: residual,
             converged: false,
         },
+        model.ice_free_albedo(),
     );
     Err(ClimateError::NotConverged {
         years: years_run,

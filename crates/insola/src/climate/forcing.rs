@@ -3,6 +3,7 @@
 
 use serde::{Deserialize, Serialize};
 
+use super::albedo::insolation_weighted_cos_zenith;
 use super::grid::ClimateGrid;
 use crate::error::{SpecError, check_range, check_range_open_min};
 use crate::insolation::daily_mean_w_m2;
@@ -99,6 +100,9 @@ pub struct BandInsolation {
     bands: usize,
     year_s: f64,
     w_m2: Vec<f64>,
+    /// Insolation-weighted mean cosine of the solar zenith angle per band over the year, when
+    /// the table comes from an orbit (`None` for idealised tables).
+    mean_cos_zenith: Option<Vec<f64>>,
 }
 
 impl BandInsolation {
@@ -114,17 +118,24 @@ impl BandInsolation {
         check_range("climate.steps_per_year", steps as f64, 1.0, 1e6)?;
         let lats = grid.lat_centres_rad();
         let mut w_m2 = Vec::with_capacity(steps * grid.len());
+        let mut days = Vec::with_capacity(steps);
         for k in 0..steps {
             let s = forcing.sample_at(k as f64 / steps as f64);
+            days.push((s.declination_rad, s.distance_factor));
             w_m2.extend(lats.iter().map(|&lat| {
                 daily_mean_w_m2(forcing.s0_w_m2, lat, s.declination_rad, s.distance_factor)
             }));
         }
+        let mean_cos_zenith = lats
+            .iter()
+            .map(|&lat| insolation_weighted_cos_zenith(lat, &days))
+            .collect();
         Ok(BandInsolation {
             steps,
             bands: grid.len(),
             year_s: forcing.year_s,
             w_m2,
+            mean_cos_zenith: Some(mean_cos_zenith),
         })
     }
 
@@ -151,6 +162,7 @@ impl BandInsolation {
             bands: grid.len(),
             year_s,
             w_m2,
+            mean_cos_zenith: None,
         })
     }
 
@@ -193,6 +205,13 @@ impl BandInsolation {
         }
         mean.iter_mut().for_each(|m| *m /= self.steps as f64);
         mean
+    }
+
+    /// Insolation-weighted mean cosine of the solar zenith angle of each band over the year
+    /// (0–1), for tables built from an orbit ([`BandInsolation::from_forcing`]); `None` for
+    /// idealised tables, which carry no sky geometry.
+    pub fn mean_cos_zenith(&self) -> Option<&[f64]> {
+        self.mean_cos_zenith.as_deref()
     }
 
     /// Number of model steps per year.

@@ -261,7 +261,7 @@ impl ClimateInstant<'_> {
         let coalbedo = if iced {
             1.0 - spec.ice_albedo
         } else {
-            1.0 - spec.ice_free_albedo(sin_lat)
+            1.0 - self.cycle.ice_free_albedo_at_x(sin_lat)
         };
         self.response
             .deviation_k(sin_lat, cos_lat, hour_angle_rad, coalbedo * self.flux_w_m2)

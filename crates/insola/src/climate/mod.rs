@@ -15,7 +15,7 @@
 //! |---|---|---|---|
 //! | `C` | column heat capacity: `ρ_w c_w h` over ocean, land value over land, by area | J m⁻² K⁻¹ | `mixed_layer_depth_m`, `land_fraction`, `land_heat_capacity_j_m2_per_k` |
 //! | `Q` | daily-mean top-of-atmosphere insolation (Berger 1978) | W m⁻² | from [`AnnualForcing`] |
-//! | `a` | co-albedo: `1 − (a0 + a2·P2(x))`, or `1 − ice_albedo` where `T < ice_temperature_c` | — | `albedo_a0`, `albedo_a2`, `ice_*` |
+//! | `a` | co-albedo: `1 − α(x)`, or `1 − ice_albedo` where `T < ice_temperature_c`; `α` from the world's sky (the band's insolation-weighted solar zenith angle, see [`IceFreeAlbedo`]) or an explicit `a0 + a2·P2(x)` | — | `ice_free_albedo` (`atmosphere_albedo` or `albedo_a0`, `albedo_a2` in a file), `ice_*` |
 //! | `A + B·T` | outgoing longwave radiation, T in °C (a gray body matched at 60 °C takes over where it emits more: above 60 °C and on very cold bands) | W m⁻² | `olr_a_w_m2`, `olr_b_w_m2_per_k` |
 //! | `D` | meridional diffusion | W m⁻² K⁻¹ | `diffusion_w_m2_per_k` |
 //!
@@ -49,6 +49,7 @@
 //! the rest. Tidally locked worlds are outside the model. Earth parameter sets appear only as
 //! marked validation references.
 
+mod albedo;
 mod cycle;
 mod ebm;
 mod equilibrium;
@@ -60,6 +61,7 @@ mod spec;
 #[cfg(test)]
 mod validation;
 
+pub use albedo::*;
 pub use cycle::*;
 pub use ebm::*;
 pub use equilibrium::*;

@@ -2,6 +2,7 @@
 
 use serde::{Deserialize, Serialize};
 
+use super::albedo::{IceFreeAlbedo, LEGACY_ALBEDO_A0, LEGACY_ALBEDO_A2};
 use crate::error::{SpecError, check_range, check_range_open_min};
 
 /// Density of liquid water, kg m⁻³ (climlab `utils/constants.py`: `rho_w = 1000`).
@@ -14,15 +15,41 @@ pub const WATER_SPECIFIC_HEAT_J_KG_K: f64 = 4181.3;
 /// Read from the `climate` section of a world file. Every field has a default (see
 /// [`ClimateSpec::default`]) so a world file may give only the fields it changes. Temperatures
 /// are in °C, fluxes in W m⁻², heat capacities in J m⁻² K⁻¹.
+///
+/// # Tuning a world's climate
+///
+/// Start with no `climate` section: the ice-free albedo then follows the world's own sky
+/// ([`IceFreeAlbedo::FromSky`]: each band's albedo from how high its star stands over the
+/// year), so a high-tilt world gets the warm poles its sunlight implies. Then, one knob at a
+/// time, checking with `insola climate WORLD`:
+///
+/// * warmer or colder everywhere: `atmosphere_albedo` (default 0.26; 0.01 less is roughly
+///   +1.5 °C in global mean before ice feedback) or `olr_a_w_m2` (default 210; 2 W m⁻² less is
+///   about +1 °C, as `B` is 2 W m⁻² K⁻¹);
+/// * smaller or larger pole–equator contrast: `diffusion_w_m2_per_k` (default 0.555; larger
+///   evens temperatures out);
+/// * milder or harsher seasons: `mixed_layer_depth_m` (deeper water stores more heat) and
+///   `land_fraction`;
+/// * more or less ice: `ice_temperature_c` and `ice_albedo`, or `ice_enabled: false`.
+///
+/// An explicit latitude law (`albedo_a0`, `albedo_a2` in the file, [`IceFreeAlbedo::Legendre`]
+/// in code) replaces the sky law; it is the same for any orbit, so its `a2` should only make
+/// the poles brighter (`a2 > 0`) where the poles' sun is low, as on Earth. `insola check` warns
+/// when it contradicts the world's tilt. A world file gives either `atmosphere_albedo` or the
+/// `albedo_a0`/`albedo_a2` pair, not both; a file giving only one of the pair takes the other
+/// from Earth's climlab set (a0 0.33, a2 0.25), as older files expect.
 #[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
-#[serde(deny_unknown_fields, default)]
+#[serde(try_from = "ClimateSection", into = "ClimateSection")]
 pub struct ClimateSpec {
     /// Number of latitude bands, uniform in sin(latitude). Default 90.
     pub bands: usize,
     /// Model time steps per orbital year. Default 180.
     pub steps_per_year: usize,
     /// Depth of the ocean mixed layer, m; sets the heat capacity of the ocean part of each band.
-    /// Default 10 (climlab seasonal EBM).
+    /// Default 50: the ocean heat capacity of Williams & Kasting (1997), 40 times their land
+    /// value (2.1×10⁸ J m⁻² K⁻¹, from memory). The climlab seasonal EBM's 10 m
+    /// ([`ClimateSpec::climlab_seasonal`]) gives a high-tilt world's polar winters seasonal ice
+    /// that tips it into a snowball.
     pub mixed_layer_depth_m: f64,
     /// Fraction of each band that is land, 0–1 (same in every band). Default 0.
     pub land_fraction: f64,
@@ -35,10 +62,10 @@ pub struct ClimateSpec {
     pub olr_b_w_m2_per_k: f64,
     /// Meridional heat diffusion coefficient `D`, W m⁻² K⁻¹. Default 0.555.
     pub diffusion_w_m2_per_k: f64,
-    /// Ice-free albedo, constant part `a0` of `a0 + a2·P2(sin φ)`. Default 0.33.
-    pub albedo_a0: f64,
-    /// Ice-free albedo, latitude part `a2` of `a0 + a2·P2(sin φ)`. Default 0.25.
-    pub albedo_a2: f64,
+    /// How ice-free bands reflect sunlight. Default [`IceFreeAlbedo::FromSky`] with an
+    /// atmosphere albedo of 0.26; in a world file `atmosphere_albedo: 0.26`, or
+    /// `albedo_a0`/`albedo_a2` for the explicit latitude law.
+    pub ice_free_albedo: IceFreeAlbedo,
     /// Whether surfaces colder than `ice_temperature_c` take the ice albedo. Default true.
     pub ice_enabled: bool,
     /// Albedo of ice-covered bands. Default 0.62.
@@ -62,21 +89,21 @@ pub struct ClimateSpec {
 }
 
 impl Default for ClimateSpec {
-    /// Earth-calibrated defaults: the climlab seasonal EBM parameter set (climlab
-    /// `model/ebm.py`, `EBM_seasonal`: A 210, B 2, D 0.555, a0 0.33, a2 0.25, ice 0.62 below
-    /// −10 °C, 10 m water), used here as a validation reference only.
+    /// The climlab seasonal EBM parameter set (climlab `model/ebm.py`, `EBM_seasonal`: A 210,
+    /// B 2, D 0.555, ice 0.62 below −10 °C) with the ice-free albedo from the world's own sky
+    /// ([`IceFreeAlbedo::FromSky`]) in place of Earth's latitude term, and a 50 m mixed layer
+    /// (see [`ClimateSpec::mixed_layer_depth_m`]) in place of 10 m.
     fn default() -> Self {
         ClimateSpec {
             bands: 90,
             steps_per_year: 180,
-            mixed_layer_depth_m: 10.0,
+            mixed_layer_depth_m: 50.0,
             land_fraction: 0.0,
             land_heat_capacity_j_m2_per_k: 5.25e6,
             olr_a_w_m2: 210.0,
             olr_b_w_m2_per_k: 2.0,
             diffusion_w_m2_per_k: 0.555,
-            albedo_a0: 0.33,
-            albedo_a2: 0.25,
+            ice_free_albedo: IceFreeAlbedo::default(),
             ice_enabled: true,
             ice_albedo: 0.62,
             ice_temperature_c: -10.0,
@@ -90,18 +117,29 @@ impl Default for ClimateSpec {
 }
 
 impl ClimateSpec {
-    /// The North, Cahalan & Coakley (1981, Rev. Geophys. 19, 91, eq. 25) parameter set:
+    /// The climlab seasonal EBM as climlab sets it (climlab `model/ebm.py`, `EBM_seasonal`):
+    /// the defaults with Earth's latitude term, albedo 0.33 + 0.25·P2, and a 10 m mixed layer.
+    /// Validation reference.
+    pub fn climlab_seasonal() -> Self {
+        ClimateSpec {
+            ice_free_albedo: IceFreeAlbedo::legendre(0.33, 0.25),
+            mixed_layer_depth_m: 10.0,
+            ..ClimateSpec::default()
+        }
+    }
+
+    /// The North, Cahalan & Coakley (1981, Rev. Geophys. 19, 91, eq. 25) parameter set (10 m
+    /// mixed layer):
     /// A 203.3 W m⁻², B 2.09 W m⁻² K⁻¹, D 0.649 W m⁻² K⁻¹, co-albedo 0.697 − 0.0779·P2 (albedo
     /// 0.303 + 0.0779·P2), ice co-albedo 0.38 below −10 °C. Values as read in published
-    /// EBM code that cites that equation (journal details from memory). The mixed layer keeps
-    /// the default 10 m.
+    /// EBM code that cites that equation (journal details from memory).
     pub fn north_1981() -> Self {
         ClimateSpec {
+            mixed_layer_depth_m: 10.0,
             olr_a_w_m2: 203.3,
             olr_b_w_m2_per_k: 2.09,
             diffusion_w_m2_per_k: 0.649,
-            albedo_a0: 0.303,
-            albedo_a2: 0.0779,
+            ice_free_albedo: IceFreeAlbedo::legendre(0.303, 0.0779),
             ice_albedo: 0.62,
             ice_temperature_c: -10.0,
             ..ClimateSpec::default()
@@ -115,8 +153,7 @@ impl ClimateSpec {
             olr_a_w_m2: 210.0,
             olr_b_w_m2_per_k: 2.0,
             diffusion_w_m2_per_k: 0.555,
-            albedo_a0: 0.3,
-            albedo_a2: 0.078,
+            ice_free_albedo: IceFreeAlbedo::legendre(0.3, 0.078),
             ice_albedo: 0.62,
             ice_temperature_c: -10.0,
             mixed_layer_depth_m: 10.0,
@@ -128,11 +165,6 @@ impl ClimateSpec {
     pub fn heat_capacity_j_m2_per_k(&self) -> f64 {
         let ocean = WATER_DENSITY_KG_M3 * WATER_SPECIFIC_HEAT_J_KG_K * self.mixed_layer_depth_m;
         (1.0 - self.land_fraction) * ocean + self.land_fraction * self.land_heat_capacity_j_m2_per_k
-    }
-
-    /// Ice-free albedo at `x = sin(latitude)`: `a0 + a2·P2(x)` (dimensionless).
-    pub fn ice_free_albedo(&self, x: f64) -> f64 {
-        self.albedo_a0 + self.albedo_a2 * 0.5 * (3.0 * x * x - 1.0)
     }
 
     /// Checks every field; errors name the field as `{path}.{field}` (or just the field when
@@ -173,8 +205,7 @@ impl ClimateSpec {
             0.0,
             100.0,
         )?;
-        check_range(&f("albedo_a0"), self.albedo_a0, 0.0, 1.0)?;
-        check_range(&f("albedo_a2"), self.albedo_a2, -1.0, 1.0)?;
+        self.ice_free_albedo.validate(f)?;
         check_range(&f("ice_albedo"), self.ice_albedo, 0.0, 1.0)?;
         check_range(
             &f("ice_temperature_c"),
@@ -202,16 +233,6 @@ impl ClimateSpec {
         )?;
         check_range(&f("max_years"), f64::from(self.max_years), 1.0, 100_000.0)?;
         check_range_open_min(&f("tolerance_k"), self.tolerance_k, 0.0, 10.0)?;
-        // P2 spans [−1/2, 1]: the ice-free albedo must stay in [0, 1] at equator and pole.
-        let (eq, pole) = (self.ice_free_albedo(0.0), self.ice_free_albedo(1.0));
-        if !(0.0..=1.0).contains(&eq) || !(0.0..=1.0).contains(&pole) {
-            return Err(SpecError::inconsistent(
-                f("albedo_a2"),
-                format!(
-                    "albedo a0 + a2·P2 is {eq:.3} at the equator and {pole:.3} at the poles; both must be within 0 to 1"
-                ),
-            ));
-        }
         // With no sunlight at all a band settles at −A/B; keep that above absolute zero.
         if self.olr_a_w_m2 / self.olr_b_w_m2_per_k > 273.15 {
             return Err(SpecError::inconsistent(
@@ -226,6 +247,139 @@ impl ClimateSpec {
     }
 }
 
+/// The `climate` section as written in a world file: the fields of [`ClimateSpec`] with the
+/// ice-free albedo spelt as flat optional fields, so files that set `albedo_a0`/`albedo_a2`
+/// keep reading as before.
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+#[serde(deny_unknown_fields, default)]
+struct ClimateSection {
+    bands: usize,
+    steps_per_year: usize,
+    mixed_layer_depth_m: f64,
+    land_fraction: f64,
+    land_heat_capacity_j_m2_per_k: f64,
+    olr_a_w_m2: f64,
+    olr_b_w_m2_per_k: f64,
+    diffusion_w_m2_per_k: f64,
+    #[serde(
+        skip_serializing_if = "Option::is_none",
+        serialize_with = "plain_number_out",
+        deserialize_with = "plain_number"
+    )]
+    atmosphere_albedo: Option<f64>,
+    #[serde(
+        skip_serializing_if = "Option::is_none",
+        serialize_with = "plain_number_out",
+        deserialize_with = "plain_number"
+    )]
+    albedo_a0: Option<f64>,
+    #[serde(
+        skip_serializing_if = "Option::is_none",
+        serialize_with = "plain_number_out",
+        deserialize_with = "plain_number"
+    )]
+    albedo_a2: Option<f64>,
+    ice_enabled: bool,
+    ice_albedo: f64,
+    ice_temperature_c: f64,
+    surface_heat_capacity_j_m2_per_k: f64,
+    diurnal_damping_w_m2_per_k: f64,
+    lapse_rate_k_per_km: f64,
+    max_years: u32,
+    tolerance_k: f64,
+}
+
+/// An optional number written as a plain number (`0.3`, not `Some(0.3)`), whatever the RON
+/// options of the reader.
+fn plain_number<'de, D: serde::Deserializer<'de>>(d: D) -> Result<Option<f64>, D::Error> {
+    f64::deserialize(d).map(Some)
+}
+
+/// Writes what [`plain_number`] reads (the `None` case is skipped before it gets here).
+fn plain_number_out<S: serde::Serializer>(v: &Option<f64>, s: S) -> Result<S::Ok, S::Error> {
+    match v {
+        Some(x) => s.serialize_f64(*x),
+        None => s.serialize_none(),
+    }
+}
+
+impl Default for ClimateSection {
+    /// The defaults with no albedo field given (so a file may give either law).
+    fn default() -> Self {
+        ClimateSection {
+            atmosphere_albedo: None,
+            ..ClimateSpec::default().into()
+        }
+    }
+}
+
+impl From<ClimateSpec> for ClimateSection {
+    fn from(s: ClimateSpec) -> Self {
+        let (atmosphere_albedo, albedo_a0, albedo_a2) = match s.ice_free_albedo {
+            IceFreeAlbedo::FromSky { atmosphere_albedo } => (Some(atmosphere_albedo), None, None),
+            IceFreeAlbedo::Legendre { a0, a2 } => (None, Some(a0), Some(a2)),
+        };
+        ClimateSection {
+            bands: s.bands,
+            steps_per_year: s.steps_per_year,
+            mixed_layer_depth_m: s.mixed_layer_depth_m,
+            land_fraction: s.land_fraction,
+            land_heat_capacity_j_m2_per_k: s.land_heat_capacity_j_m2_per_k,
+            olr_a_w_m2: s.olr_a_w_m2,
+            olr_b_w_m2_per_k: s.olr_b_w_m2_per_k,
+            diffusion_w_m2_per_k: s.diffusion_w_m2_per_k,
+            atmosphere_albedo,
+            albedo_a0,
+            albedo_a2,
+            ice_enabled: s.ice_enabled,
+            ice_albedo: s.ice_albedo,
+            ice_temperature_c: s.ice_temperature_c,
+            surface_heat_capacity_j_m2_per_k: s.surface_heat_capacity_j_m2_per_k,
+            diurnal_damping_w_m2_per_k: s.diurnal_damping_w_m2_per_k,
+            lapse_rate_k_per_km: s.lapse_rate_k_per_km,
+            max_years: s.max_years,
+            tolerance_k: s.tolerance_k,
+        }
+    }
+}
+
+impl TryFrom<ClimateSection> for ClimateSpec {
+    type Error = String;
+
+    fn try_from(s: ClimateSection) -> Result<Self, String> {
+        let ice_free_albedo = match (s.atmosphere_albedo, s.albedo_a0, s.albedo_a2) {
+            (Some(_), Some(_), _) | (Some(_), _, Some(_)) => {
+                return Err("climate: give either atmosphere_albedo (the sky law) or albedo_a0/albedo_a2 (an explicit latitude law), not both".to_string());
+            }
+            (None, None, None) => IceFreeAlbedo::default(),
+            (Some(atmosphere_albedo), None, None) => IceFreeAlbedo::FromSky { atmosphere_albedo },
+            (None, a0, a2) => IceFreeAlbedo::legendre(
+                a0.unwrap_or(LEGACY_ALBEDO_A0),
+                a2.unwrap_or(LEGACY_ALBEDO_A2),
+            ),
+        };
+        Ok(ClimateSpec {
+            bands: s.bands,
+            steps_per_year: s.steps_per_year,
+            mixed_layer_depth_m: s.mixed_layer_depth_m,
+            land_fraction: s.land_fraction,
+            land_heat_capacity_j_m2_per_k: s.land_heat_capacity_j_m2_per_k,
+            olr_a_w_m2: s.olr_a_w_m2,
+            olr_b_w_m2_per_k: s.olr_b_w_m2_per_k,
+            diffusion_w_m2_per_k: s.diffusion_w_m2_per_k,
+            ice_free_albedo,
+            ice_enabled: s.ice_enabled,
+            ice_albedo: s.ice_albedo,
+            ice_temperature_c: s.ice_temperature_c,
+            surface_heat_capacity_j_m2_per_k: s.surface_heat_capacity_j_m2_per_k,
+            diurnal_damping_w_m2_per_k: s.diurnal_damping_w_m2_per_k,
+            lapse_rate_k_per_km: s.lapse_rate_k_per_km,
+            max_years: s.max_years,
+            tolerance_k: s.tolerance_k,
+        })
+    }
+}
+
 #[cfg(test)]
 mod tests {
     use super::*;
@@ -235,6 +389,39 @@ mod tests {
         ClimateSpec::default().validate("climate").unwrap();
         ClimateSpec::north_1981().validate("climate").unwrap();
         ClimateSpec::climlab_defaults().validate("climate").unwrap();
+        ClimateSpec::climlab_seasonal().validate("climate").unwrap();
+    }
+
+    #[test]
+    fn albedo_fields_in_files_choose_the_law() {
+        let sky: ClimateSpec = ron::from_str("()").unwrap();
+        assert_eq!(sky.ice_free_albedo, IceFreeAlbedo::default());
+        let tuned: ClimateSpec = ron::from_str("(atmosphere_albedo: 0.2)").unwrap();
+        assert_eq!(
+            tuned.ice_free_albedo,
+            IceFreeAlbedo::FromSky {
+                atmosphere_albedo: 0.2
+            }
+        );
+        let both: ClimateSpec = ron::from_str("(albedo_a0: 0.31, albedo_a2: 0.1)").unwrap();
+        assert_eq!(both.ice_free_albedo, IceFreeAlbedo::legendre(0.31, 0.1));
+        // One of the pair alone: the other keeps its former default, as older files expect.
+        let a2_only: ClimateSpec = ron::from_str("(albedo_a2: 0.0)").unwrap();
+        assert_eq!(a2_only.ice_free_albedo, IceFreeAlbedo::legendre(0.33, 0.0));
+        let err = ron::from_str::<ClimateSpec>("(atmosphere_albedo: 0.2, albedo_a0: 0.3)")
+            .unwrap_err()
+            .to_string();
+        assert!(err.contains("not both"), "{err}");
+    }
+
+    #[test]
+    fn spec_round_trips_through_ron_and_json() {
+        for spec in [ClimateSpec::default(), ClimateSpec::north_1981()] {
+            let ron_text = ron::to_string(&spec).unwrap();
+            assert_eq!(ron::from_str::<ClimateSpec>(&ron_text).unwrap(), spec);
+            let json = serde_json::to_string(&spec).unwrap();
+            assert_eq!(serde_json::from_str::<ClimateSpec>(&json).unwrap(), spec);
+        }
     }
 
     #[test]
@@ -264,8 +451,7 @@ mod tests {
     #[test]
     fn albedo_out_of_unit_range_is_inconsistent() {
         let spec = ClimateSpec {
-            albedo_a0: 0.9,
-            albedo_a2: 0.5,
+            ice_free_albedo: IceFreeAlbedo::legendre(0.9, 0.5),
             ..ClimateSpec::default()
         };
         let err = spec.validate("").unwrap_err();
@@ -285,7 +471,7 @@ mod tests {
     #[test]
     fn heat_capacity_of_ten_metres_of_water() {
         // ρ c h = 1000 × 4181.3 × 10 (climlab constants).
-        let c = ClimateSpec::default().heat_capacity_j_m2_per_k();
+        let c = ClimateSpec::climlab_seasonal().heat_capacity_j_m2_per_k();
         assert!((c - 4.1813e7).abs() < 1.0);
     }
 }

@@ -28,15 +28,14 @@ fn model(spec: &ClimateSpec, forcing: &AnnualForcing) -> EnergyBalanceModel {
 /// `Q (1 + s11 cos(2π f) x)`, constant co-albedo 0.7, no ice.
 fn p1_response(depth_m: f64) -> (f64, f64) {
     let spec = ClimateSpec {
-        albedo_a0: 0.3,
-        albedo_a2: 0.0,
+        ice_free_albedo: IceFreeAlbedo::legendre(0.3, 0.0),
         ice_enabled: false,
         olr_a_w_m2: 210.0,
         olr_b_w_m2_per_k: 2.0,
         diffusion_w_m2_per_k: 0.555,
         mixed_layer_depth_m: depth_m,
         steps_per_year: 365,
-        ..ClimateSpec::default()
+        ..ClimateSpec::climlab_seasonal()
     };
     let grid = ClimateGrid::new(spec.bands).unwrap();
     let s11 = 2.0 * 23.44f64.to_radians().sin();
@@ -152,7 +151,7 @@ fn step_ice_albedo_edges_near_seventy_degrees_and_snowball_at_1200() {
 
 #[test]
 fn seasonal_default_world_converges_and_repeats() {
-    let spec = ClimateSpec::default();
+    let spec = ClimateSpec::climlab_seasonal();
     let forcing = earth_like_forcing(23.446);
     let cycle = equilibrate(&spec, &forcing).unwrap();
     assert!(cycle.converged() && cycle.residual_k() < 0.01);
@@ -197,8 +196,8 @@ fn high_tilt_warm_poles_and_two_equatorial_summers() {
         // is tied to Earth's own sunlight geometry and would hide the effect.
         let spec = ClimateSpec {
             ice_enabled: false,
-            albedo_a2: 0.0,
-            ..ClimateSpec::default()
+            ice_free_albedo: IceFreeAlbedo::legendre(0.33, 0.0),
+            ..ClimateSpec::climlab_seasonal()
         };
         let cycle =
             equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
@@ -220,7 +219,7 @@ fn high_tilt_warm_poles_and_two_equatorial_summers() {
 
 #[test]
 fn any_tilt_and_an_eccentric_orbit_work() {
-    let spec = ClimateSpec::default();
+    let spec = ClimateSpec::climlab_seasonal();
     for tilt in [0.0, 90.0, 180.0] {
         let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
         assert!(c.converged());
@@ -252,7 +251,7 @@ fn any_tilt_and_an_eccentric_orbit_work() {
 fn circular_orbit_hemispheres_mirror_half_a_year_apart() {
     let spec = ClimateSpec {
         bands: 60,
-        ..ClimateSpec::default()
+        ..ClimateSpec::climlab_seasonal()
     };
     let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, 23.44, 0.0, YEAR_S, 360)).unwrap();
     for lat in [0.2, 0.7, 1.2] {
@@ -267,7 +266,7 @@ fn circular_orbit_hemispheres_mirror_half_a_year_apart() {
 fn bad_spec_is_an_error_naming_the_field() {
     let spec = ClimateSpec {
         mixed_layer_depth_m: f64::NAN,
-        ..ClimateSpec::default()
+        ..ClimateSpec::climlab_seasonal()
     };
     match equilibrate(&spec, &earth_like_forcing(23.44)) {
         Err(ClimateError::Spec(e)) => assert_eq!(e.field(), Some("climate.mixed_layer_depth_m")),
@@ -275,7 +274,7 @@ fn bad_spec_is_an_error_naming_the_field() {
     }
     let mut bad = earth_like_forcing(23.44);
     bad.s0_w_m2 = -5.0;
-    match equilibrate(&ClimateSpec::default(), &bad) {
+    match equilibrate(&ClimateSpec::climlab_seasonal(), &bad) {
         Err(ClimateError::Spec(e)) => assert_eq!(e.field(), Some("forcing.s0_w_m2")),
         other => panic!("{other:?}"),
     }
@@ -286,7 +285,7 @@ fn not_converging_within_the_year_cap_is_a_typed_error() {
     let spec = ClimateSpec {
         max_years: 1,
         mixed_layer_depth_m: 200.0,
-        ..ClimateSpec::default()
+        ..ClimateSpec::climlab_seasonal()
     };
     match equilibrate(&spec, &earth_like_forcing(23.44)) {
         Err(ClimateError::NotConverged { years, last, .. }) => {
@@ -299,7 +298,7 @@ fn not_converging_within_the_year_cap_is_a_typed_error() {
 
 #[test]
 fn local_temperatures_day_night_and_elevation() {
-    let spec = ClimateSpec::default();
+    let spec = ClimateSpec::climlab_seasonal();
     let c = equilibrate(&spec, &earth_like_forcing(23.44)).unwrap();
     let day_s = 86400.0;
     let noon = c.local_temperature_c(0.3, 0.4, 0.0, 0.0, day_s).unwrap();
@@ -365,8 +364,8 @@ proptest! {
     ) {
         let spec = ClimateSpec {
             bands: 24, steps_per_year: 60, mixed_layer_depth_m: depth, land_fraction: land,
-            olr_a_w_m2: a, olr_b_w_m2_per_k: b, diffusion_w_m2_per_k: d, albedo_a0: a0,
-            albedo_a2: a2, ice_enabled: ice, max_years: 300, ..ClimateSpec::default()
+            olr_a_w_m2: a, olr_b_w_m2_per_k: b, diffusion_w_m2_per_k: d,
+            ice_free_albedo: IceFreeAlbedo::legendre(a0, a2), ice_enabled: ice, max_years: 300, ..ClimateSpec::climlab_seasonal()
         };
         let forcing = kepler_forcing(s0, e, tilt, peri, year_days * 86400.0, 72);
         let cycle = match equilibrate(&spec, &forcing) {
@@ -399,7 +398,7 @@ fn presets_run_on_the_validation_orbit() {
     // Earth orbit as a marked validation reference; the presets must settle to a climate with
     // a global mean within the broad range of simple EBMs (common practice, no source).
     for spec in [
-        ClimateSpec::default(),
+        ClimateSpec::climlab_seasonal(),
         ClimateSpec::north_1981(),
         ClimateSpec::climlab_defaults(),
     ] {
@@ -465,13 +464,13 @@ fn energy_is_conserved_over_the_periodic_year() {
     // e.g. North, Cahalan & Coakley 1981). Evaluated with the scheme's own step pairing:
     // sunlight at the step end with co-albedo from the step start, longwave at the step end.
     for (spec, tilt, e) in [
-        (ClimateSpec::default(), 23.446, 0.017236),
+        (ClimateSpec::climlab_seasonal(), 23.446, 0.017236),
         (ClimateSpec::north_1981(), 60.0, 0.2),
         (
             ClimateSpec {
                 land_fraction: 0.6,
                 mixed_layer_depth_m: 50.0,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             35.0,
             0.05,
@@ -508,8 +507,8 @@ fn seasonal_swing_at_high_latitudes_grows_with_tilt() {
     // Constant ice-free albedo so the ice line does not blur the trend.
     let spec = ClimateSpec {
         ice_enabled: false,
-        albedo_a2: 0.0,
-        ..ClimateSpec::default()
+        ice_free_albedo: IceFreeAlbedo::legendre(0.33, 0.0),
+        ..ClimateSpec::climlab_seasonal()
     };
     let swing_at = |tilt: f64, lat_deg: f64| {
         let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
@@ -536,8 +535,8 @@ fn poles_warmer_than_the_equator_only_above_about_54_degrees() {
     // ice-free model with constant albedo follows the sunlight.
     let spec = ClimateSpec {
         ice_enabled: false,
-        albedo_a2: 0.0,
-        ..ClimateSpec::default()
+        ice_free_albedo: IceFreeAlbedo::legendre(0.33, 0.0),
+        ..ClimateSpec::climlab_seasonal()
     };
     let pole_minus_equator = |tilt: f64| {
         let c = equilibrate(&spec, &kepler_forcing(1365.2, 0.0, tilt, 0.0, YEAR_S, 360)).unwrap();
@@ -558,49 +557,49 @@ fn bad_climate_parameters_name_the_field() {
         (
             ClimateSpec {
                 mixed_layer_depth_m: -5.0,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.mixed_layer_depth_m",
         ),
         (
             ClimateSpec {
                 land_heat_capacity_j_m2_per_k: -1e6,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.land_heat_capacity_j_m2_per_k",
         ),
         (
             ClimateSpec {
                 surface_heat_capacity_j_m2_per_k: -1.0,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.surface_heat_capacity_j_m2_per_k",
         ),
         (
             ClimateSpec {
-                albedo_a0: 1.5,
-                ..ClimateSpec::default()
+                ice_free_albedo: IceFreeAlbedo::legendre(1.5, 0.25),
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.albedo_a0",
         ),
         (
             ClimateSpec {
                 ice_albedo: -0.1,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.ice_albedo",
         ),
         (
             ClimateSpec {
                 diffusion_w_m2_per_k: f64::NAN,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.diffusion_w_m2_per_k",
         ),
         (
             ClimateSpec {
                 olr_a_w_m2: f64::NAN,
-                ..ClimateSpec::default()
+                ..ClimateSpec::climlab_seasonal()
             },
             "climate.olr_a_w_m2",
         ),
