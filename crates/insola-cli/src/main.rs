@@ -33,6 +33,9 @@ enum Command {
     Sky(commands::sky::Args),
     /// Rise, set, transit and twilights of one local day.
     Day(commands::day::Args),
+    /// Every event of the sky in an interval: rise, set, twilight, seasons, moon phases,
+    /// eclipses.
+    Events(commands::events::Args),
     /// One row per day of the year: daylight, noon altitude, daily insolation.
     Year(commands::year::Args),
     /// List the invented worlds built into this command.
@@ -62,6 +65,7 @@ fn main() -> ExitCode {
         Command::Check(a) => commands::check::run(a),
         Command::Sky(a) => commands::sky::run(a),
         Command::Day(a) => commands::day::run(a),
+        Command::Events(a) => commands::events::run(a),
         Command::Year(a) => commands::year::run(a),
         Command::Worlds(a) => commands::list::run(a),
         Command::Climate(a) => commands::climate::run(a),

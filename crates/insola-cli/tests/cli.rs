@@ -381,6 +381,57 @@ fn check_names_the_albedo_law_and_local_season_lengths() {
 }
 
 #[test]
+fn every_eclipse_of_ten_years_in_order() {
+    let v = json(&[
+        "events",
+        "earth-reference",
+        "--lat",
+        "51.5",
+        "--lon",
+        "0",
+        "--from-utc",
+        "2000-01-01",
+        "--to-utc",
+        "2010-01-01",
+        "--kinds",
+        "eclipse",
+        "--json",
+    ]);
+    has(&v, &["world", "events", "caution", "from_s", "to_s"]);
+    assert!(
+        v["caution"]
+            .as_str()
+            .unwrap()
+            .contains("not for navigation")
+    );
+    let events = v["events"].as_array().unwrap();
+    assert!(events.len() >= 30, "{}", events.len());
+    let (from, to) = (v["from_s"].as_f64().unwrap(), v["to_s"].as_f64().unwrap());
+    let mut last = f64::NEG_INFINITY;
+    for e in events {
+        has(e, &["t_s", "day", "utc", "date", "group", "text", "kind"]);
+        let t = e["t_s"].as_f64().unwrap();
+        assert!(t >= last && t >= from && t < to, "{e}");
+        last = t;
+        let group = e["group"].as_str().unwrap();
+        assert!(group == "star-eclipse" || group == "moon-eclipse", "{e}");
+    }
+    // The total lunar eclipse of 2000 January 21 (NASA eclipse catalogue; from memory) is on
+    // the list, by the moon's name.
+    assert!(
+        events
+            .iter()
+            .any(|e| e["utc"].as_str().unwrap().starts_with("2000-01-21")
+                && e["text"]
+                    .as_str()
+                    .unwrap()
+                    .contains("eclipse of Moon greatest")),
+        "{:?}",
+        &events[..3]
+    );
+}
+
+#[test]
 fn check_warns_when_the_latitude_term_contradicts_the_tilt() {
     // An invented 64°-tilt world given Earth's latitude term (poles brighter): its poles see
     // a higher sun over the year than its equator, so the term is the wrong way round.
@@ -417,4 +468,63 @@ fn climate_header_ice_summary_agrees_with_the_table() {
             assert_eq!(iced, !reach.is_null(), "{world} {key}: {reach}");
         }
     }
+}
+
+#[test]
+fn events_table_csv_and_help_carry_the_caution() {
+    let out = insola(&["events", "verdance", "--lat", "40", "--to", "2"]);
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(
+        text.contains("star rises") && text.contains("dusk: civil twilight ends"),
+        "{text}"
+    );
+    assert!(text.contains("not for navigation"), "{text}");
+    let out = insola(&[
+        "events",
+        "verdance",
+        "--lat",
+        "40",
+        "--from",
+        "10",
+        "--to",
+        "12",
+        "--kinds",
+        "rise-set,day",
+        "--csv",
+    ]);
+    assert!(out.status.success());
+    let csv = String::from_utf8_lossy(&out.stdout);
+    let mut lines = csv.lines();
+    assert_eq!(
+        lines.next(),
+        Some("t_s,day,utc,date,local_time_h,group,event")
+    );
+    let rows: Vec<&str> = lines.collect();
+    // Two days: two new days, and the star and both moons rising and setting.
+    assert!(
+        rows.iter().filter(|r| r.contains(",day,")).count() == 2,
+        "{csv}"
+    );
+    assert!(rows.iter().any(|r| r.ends_with("star rises")), "{csv}");
+    assert!(String::from_utf8_lossy(&out.stderr).contains("not for navigation"));
+    let help = insola(&["events", "--help"]);
+    assert!(String::from_utf8_lossy(&help.stdout).contains("not for navigation"));
+}
+
+#[test]
+fn events_reject_bad_input_cleanly() {
+    let err = fails_cleanly(&[
+        "events", "verdance", "--lat", "0", "--to", "1", "--kinds", "comets",
+    ]);
+    assert!(
+        err.contains("comets") && err.contains("moon-phase"),
+        "{err}"
+    );
+    let err = fails_cleanly(&[
+        "events", "verdance", "--lat", "0", "--from", "5", "--to", "1",
+    ]);
+    assert!(err.contains("before the start"), "{err}");
+    fails_cleanly(&["events", "verdance", "--lat", "0", "--to-utc", "2000-01-01"]);
+    fails_cleanly(&["events", "verdance", "--lat", "0", "--to", "1e15"]);
 }

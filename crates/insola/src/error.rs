@@ -135,6 +135,26 @@ pub enum QueryError {
         /// Allowed range in words.
         allowed: &'static str,
     },
+    /// A time interval that does not run forward: an end not finite, or `to` before `from`.
+    #[error("interval from {from_s} s to {to_s} s is not valid: {reason}")]
+    BadInterval {
+        /// Start given, world seconds.
+        from_s: f64,
+        /// End given, world seconds.
+        to_s: f64,
+        /// What is wrong with it.
+        reason: &'static str,
+    },
+    /// An interval too long to search: it would take more samples than the search allows.
+    #[error(
+        "interval of {length_s:.4e} s is too long for this search: at most {max_s:.4e} s on this world (ask for fewer event groups or split it)"
+    )]
+    IntervalTooLong {
+        /// Length given, seconds.
+        length_s: f64,
+        /// Longest interval allowed for this world and filter, seconds.
+        max_s: f64,
+    },
 }
 
 /// Checks a query argument; see [`QueryError`].

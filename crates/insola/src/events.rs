@@ -4,21 +4,19 @@
 //! bisection, so it works for any world: fast and slow rotators, days longer than the year,
 //! eccentric orbits whose star lingers. A crossing shorter than the sampling step can be missed;
 //! the step is a fraction of the day (see [`EVENT_SAMPLES_PER_DAY`]).
+//!
+//! For every event over any interval (moons, eclipses, phases, seasons as well), in time
+//! order, see [`crate::sky_events`]; the twilight bands are [`crate::light::TwilightBand`].
 
 use serde::{Deserialize, Serialize};
 
+use crate::light::TwilightBand;
 use crate::planet::Planet;
 use crate::sky::Place;
+use crate::sky_events::scan::{Grid, refine_change};
 
 /// Samples of the star's height per local day used to find crossings.
 pub const EVENT_SAMPLES_PER_DAY: usize = 480;
-
-/// Altitude of the star's centre at the end of civil twilight, radians (−6°).
-pub const CIVIL_TWILIGHT_RAD: f64 = -6.0 * std::f64::consts::PI / 180.0;
-/// Altitude of the star's centre at the end of nautical twilight, radians (−12°).
-pub const NAUTICAL_TWILIGHT_RAD: f64 = -12.0 * std::f64::consts::PI / 180.0;
-/// Altitude of the star's centre at the end of astronomical twilight, radians (−18°).
-pub const ASTRONOMICAL_TWILIGHT_RAD: f64 = -18.0 * std::f64::consts::PI / 180.0;
 
 /// The star stays above (or below) a threshold for the whole local day.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Serialize, Deserialize)]
@@ -101,9 +99,9 @@ impl Planet {
             transit_s,
             transit_altitude_rad,
             sunlight: crossings(self.standard_rise_altitude_rad()),
-            civil: crossings(CIVIL_TWILIGHT_RAD),
-            nautical: crossings(NAUTICAL_TWILIGHT_RAD),
-            astronomical: crossings(ASTRONOMICAL_TWILIGHT_RAD),
+            civil: crossings(TwilightBand::Civil.lower_limit_rad()),
+            nautical: crossings(TwilightBand::Nautical.lower_limit_rad()),
+            astronomical: crossings(TwilightBand::Astronomical.lower_limit_rad()),
         }
     }
 
@@ -111,16 +109,12 @@ impl Planet {
     fn find_transit(&self, times: &[f64], place: Place) -> Option<f64> {
         let ha = |t: f64| self.star_position(t, place).hour_angle_rad;
         let mut prev = ha(times[0]);
+        // Sampled as the event finder's transit: last instant at or before zero.
         for w in times.windows(2) {
             let next = ha(w[1]);
             // A wrap from +π to −π is not a transit; a small step through zero is.
             if prev <= 0.0 && next > 0.0 && next - prev < std::f64::consts::PI {
-                let (mut lo, mut hi) = (w[0], w[1]);
-                for _ in 0..60 {
-                    let mid = 0.5 * (lo + hi);
-                    if ha(mid) <= 0.0 { lo = mid } else { hi = mid }
-                }
-                return Some(0.5 * (lo + hi));
+                return Some(refine_change(w[0], w[1], false, &mut |t| ha(t) > 0.0));
             }
             prev = next;
         }
@@ -128,18 +122,21 @@ impl Planet {
     }
 }
 
-/// One passage of the star through an altitude threshold.
+/// One passage through an altitude threshold: the last instant on the old side, within
+/// [`crate::sky_events::EVENT_TIME_TOLERANCE_S`] of the passage.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct Crossing {
     /// World time of the crossing, seconds since time zero.
     pub t_s: f64,
-    /// `true` when the star goes up through the threshold, `false` when it goes down.
+    /// `true` when the body goes above the threshold (strictly: the "is up" rule), `false`
+    /// when it goes back to it or below.
     pub rising: bool,
 }
 
 impl Planet {
-    /// Every crossing of `threshold_rad` by the star's centre in `(t0_s, t1_s]` at `place`, in
-    /// time order. Samples at most every 1/96 of a day, so a long interval (a fast-running
+    /// Every crossing of `threshold_rad` by the star's centre at `place` reported in
+    /// `[t0_s, t1_s)` (each passage in `(t0_s, t1_s]`, so consecutive intervals report it
+    /// once), in time order. Samples at most every 1/96 of a day, so a long interval (a fast-running
     /// clock) still yields each sunrise and sunset once; appends to `out` (no allocation when
     /// `out` has room).
     pub fn altitude_crossings_into(
@@ -156,10 +153,10 @@ impl Planet {
     }
 }
 
-/// Every sign change of `f` in `(t0_s, t1_s]`, sampled at most every `max_step` seconds and
-/// refined by bisection; `rising` when `f` goes from negative to non-negative. Deterministic:
-/// the value at an interval's end is the value at the next interval's start, so consecutive
-/// intervals report each crossing exactly once.
+/// Every sign change of `f` (positive or not) between samples at most `max_step` apart over
+/// `[t0_s, t1_s]`, each reported at the last instant before it (so in `[t0_s, t1_s)`); `rising`
+/// when `f` turns positive. Deterministic: the value at an interval's end is the value at the
+/// next interval's start, so consecutive intervals report each crossing exactly once.
 pub(crate) fn crossings_of(
     f: &dyn Fn(f64) -> f64,
     t0_s: f64,
@@ -173,22 +170,14 @@ pub(crate) fn crossings_of(
     {
         return;
     }
-    let n = ((t1_s - t0_s) / max_step).ceil().clamp(1.0, 1.0e7) as usize;
-    let step = (t1_s - t0_s) / n as f64;
-    let mut a = f(t0_s);
-    for i in 0..n {
-        let ta = t0_s + i as f64 * step;
-        let tb = if i + 1 == n {
-            t1_s
-        } else {
-            t0_s + (i + 1) as f64 * step
-        };
-        let b = f(tb);
-        if (a >= 0.0) != (b >= 0.0) {
-            let t = bisect(ta, tb, a >= 0.0, f);
+    let grid = Grid::new(t0_s, t1_s, max_step.max((t1_s - t0_s) / 1.0e7));
+    let mut a = f(t0_s) > 0.0;
+    for (ta, tb) in grid.steps() {
+        let b = f(tb) > 0.0;
+        if a != b {
             out.push(Crossing {
-                t_s: t,
-                rising: b >= 0.0,
+                t_s: refine_change(ta, tb, a, &mut |t| f(t) > 0.0),
+                rising: b,
             });
         }
         a = b;
@@ -210,7 +199,7 @@ fn find_crossings(times: &[f64], alts: &[f64], h: f64, alt_at: &dyn Fn(f64) -> f
             continue;
         }
         any = true;
-        let t = bisect(t0, t1, a0 >= 0.0, &|t| alt_at(t) - h);
+        let t = refine_change(t0, t1, a0 >= 0.0, &mut |t| alt_at(t) - h >= 0.0);
         if a1 >= 0.0 {
             rise.get_or_insert(t);
             above_s += t1 - t;
@@ -232,19 +221,4 @@ fn find_crossings(times: &[f64], alts: &[f64], h: f64, alt_at: &dyn Fn(f64) -> f
         time_above_s: above_s,
         polar,
     }
-}
-
-fn bisect(mut lo: f64, mut hi: f64, lo_above: bool, f: &dyn Fn(f64) -> f64) -> f64 {
-    for _ in 0..50 {
-        let mid = 0.5 * (lo + hi);
-        if (f(mid) >= 0.0) == lo_above {
-            lo = mid
-        } else {
-            hi = mid
-        }
-        if hi - lo < 1e-3 {
-            break;
-        }
-    }
-    0.5 * (lo + hi)
 }

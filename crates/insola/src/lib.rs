@@ -17,6 +17,7 @@ pub mod orbit;
 mod planet;
 pub mod seasons;
 mod sky;
+pub mod sky_events;
 pub mod spin;
 pub mod world;
 mod world_climate;

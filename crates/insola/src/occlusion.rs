@@ -13,6 +13,10 @@
 //!   second star passing in front of the first are new [`Occluder`] variants with their own
 //!   cover function in this file, not changes in each consumer.
 //!
+//! A new occluder also says how far it is from the star ([`Planet::occluder_clearance_rad`],
+//! negative while it covers it) and how fast that can change ([`Planet::occluder_motion`]), so
+//! the event finder can walk to each of its eclipses without knowing what it is.
+//!
 //! Every consumer that needs "how much of the star's light gets through here and now" asks
 //! this module and nothing else: [`Planet::lighting`] (the star's beam and the sky light it
 //! feeds), observers and batch insolation ([`Planet::top_of_atmosphere_insolation_w_m2`]),
@@ -67,6 +71,22 @@ impl Occlusion {
     }
 }
 
+/// Safety factor on the rate bounds of [`OccluderMotion`] (common practice, no source).
+const OCCLUDER_RATE_MARGIN: f64 = 1.25;
+
+/// How fast an occluder can move against the star: what the event finder needs to walk
+/// toward an eclipse without stepping over it.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct OccluderMotion {
+    /// Upper bound on the rate of change of [`Planet::occluder_clearance_rad`], rad/s.
+    pub max_rate_rad_s: f64,
+    /// Smallest sum of the two discs' angular radii, radians: the scale of the shortest
+    /// eclipse.
+    pub min_contact_rad: f64,
+    /// Longest an eclipse could last, seconds (the occluder's synodic period, at most a year).
+    pub longest_s: f64,
+}
+
 impl Planet {
     /// Every occluder of this world, in a fixed order (moons in world-file order).
     pub fn occluders(&self) -> impl Iterator<Item = Occluder> + '_ {
@@ -86,6 +106,73 @@ impl Planet {
             Occluder::Moon(i) => self
                 .moon_view(instant, i, place)
                 .map_or(0.0, |v| v.star_covered_fraction),
+        }
+    }
+
+    /// Angular gap between the edges of `occluder`'s disc and the star's for `place` at a
+    /// precomputed instant, radians: positive while they are apart, negative while they
+    /// overlap, so `occluder_cover > 0` exactly when this is `< 0` (`+∞` for an occluder this
+    /// world does not have). The event finder walks toward its zeros.
+    pub fn occluder_clearance_rad(
+        &self,
+        occluder: Occluder,
+        instant: &StarInstant,
+        place: Place,
+    ) -> f64 {
+        match occluder {
+            Occluder::Moon(i) => self
+                .moon_view(instant, i, place)
+                .map_or(f64::INFINITY, |v| {
+                    v.elongation_rad - v.angular_radius_rad - instant.angular_radius_rad
+                }),
+        }
+    }
+
+    /// Bounds on how fast `occluder`'s clearance can change, from any place (`None` for an
+    /// occluder this world does not have).
+    pub fn occluder_motion(&self, occluder: Occluder) -> Option<OccluderMotion> {
+        match occluder {
+            Occluder::Moon(i) => {
+                let orbit = self.moon_orbits().get(i)?;
+                let planet_r = self.body().radius_km * 1000.0;
+                // Speed of the observer about the planet's axis, m/s (largest at the equator).
+                let v_obs = planet_r * std::f64::consts::TAU / self.spin().sidereal_day_s;
+                let moon = crate::orbit::OrbitExtremes::of(
+                    orbit.distance_m,
+                    orbit.eccentricity,
+                    orbit.period_s,
+                );
+                let ours = crate::orbit::OrbitExtremes::of(
+                    self.semi_major_axis_m(),
+                    self.spec().orbit.eccentricity,
+                    self.year_s(),
+                );
+                // A direction to a point at distance d moving at relative speed v turns at most
+                // v/d; the elongation changes at most as fast as both directions together, and
+                // each disc's angular radius at most (radius × the direction's rate).
+                let moon_rate = (moon.fastest_m_s + v_obs) / (moon.closest_m - planet_r).max(1.0);
+                let star_rate = (ours.fastest_m_s + v_obs) / (ours.closest_m - planet_r).max(1.0);
+                let moon_r_max = crate::light::angular_radius(
+                    orbit.radius_m,
+                    (moon.closest_m - planet_r).max(orbit.radius_m),
+                );
+                let star_r_max =
+                    crate::light::angular_radius(self.star_radius_m(), ours.closest_m - planet_r);
+                let rate = (moon_rate * (1.0 + moon_r_max) + star_rate * (1.0 + star_r_max))
+                    * OCCLUDER_RATE_MARGIN;
+                let contact =
+                    crate::light::angular_radius(orbit.radius_m, moon.farthest_m + planet_r)
+                        + crate::light::angular_radius(
+                            self.star_radius_m(),
+                            ours.farthest_m + planet_r,
+                        );
+                Some(OccluderMotion {
+                    max_rate_rad_s: rate,
+                    min_contact_rad: contact,
+                    longest_s: crate::moons::synodic_period_s(orbit.period_s, self.year_s())
+                        .min(self.year_s()),
+                })
+            }
         }
     }
 

@@ -199,12 +199,39 @@ impl Orbit {
         );
         let dm = wrap_tau(m - self.mean_anomaly_at_zero_rad);
         let first = dm / TAU * self.period_s;
-        let orbits = ((after_s - first) / self.period_s).ceil().max(0.0);
+        let orbits = ((after_s - first) / self.period_s).ceil();
         let mut t = first + orbits * self.period_s;
         if t < after_s {
             t += self.period_s;
         }
         t
+    }
+}
+
+/// Extremes of a Keplerian orbit, for bounding how fast things seen along it can change.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct OrbitExtremes {
+    /// Periapsis distance, metres.
+    pub(crate) closest_m: f64,
+    /// Apoapsis distance, metres.
+    pub(crate) farthest_m: f64,
+    /// Speed at periapsis (the fastest), m/s: (2πa/P) √((1 + e)/(1 − e)).
+    pub(crate) fastest_m_s: f64,
+    /// Angular rate at periapsis (the fastest), rad/s: n (1 + e)² / (1 − e²)^{3/2}.
+    pub(crate) fastest_rad_s: f64,
+}
+
+impl OrbitExtremes {
+    /// For semi-major axis `a_m`, eccentricity `e` (below 1) and period `period_s` (standard
+    /// two-body relations).
+    pub(crate) fn of(a_m: f64, e: f64, period_s: f64) -> OrbitExtremes {
+        let n = TAU / period_s;
+        OrbitExtremes {
+            closest_m: a_m * (1.0 - e),
+            farthest_m: a_m * (1.0 + e),
+            fastest_m_s: n * a_m * ((1.0 + e) / (1.0 - e)).sqrt(),
+            fastest_rad_s: n * (1.0 + e).powi(2) / (1.0 - e * e).powf(1.5),
+        }
     }
 }
 

@@ -10,6 +10,52 @@ use std::f64::consts::FRAC_PI_2;
 
 use crate::planet::Planet;
 
+/// One of the four turning points of the year, named for the north (see the module docs).
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+pub enum SeasonMark {
+    /// The star crosses the equator going north (ecliptic longitude 0°).
+    NorthwardEquinox,
+    /// The star stands farthest north (90°).
+    NorthernSolstice,
+    /// The star crosses the equator going south (180°).
+    SouthwardEquinox,
+    /// The star stands farthest south (270°).
+    SouthernSolstice,
+}
+
+impl std::fmt::Display for SeasonMark {
+    /// `northward equinox`, `northern solstice`, `southward equinox`, `southern solstice`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            SeasonMark::NorthwardEquinox => "northward equinox",
+            SeasonMark::NorthernSolstice => "northern solstice",
+            SeasonMark::SouthwardEquinox => "southward equinox",
+            SeasonMark::SouthernSolstice => "southern solstice",
+        })
+    }
+}
+
+impl SeasonMark {
+    /// All four, in the order of the year from the northward equinox.
+    pub const ALL: [SeasonMark; 4] = [
+        SeasonMark::NorthwardEquinox,
+        SeasonMark::NorthernSolstice,
+        SeasonMark::SouthwardEquinox,
+        SeasonMark::SouthernSolstice,
+    ];
+
+    /// The star's ecliptic longitude at this mark, radians (0, π/2, π, 3π/2).
+    pub fn ecliptic_longitude_rad(self) -> f64 {
+        let quarter = match self {
+            SeasonMark::NorthwardEquinox => 0.0,
+            SeasonMark::NorthernSolstice => 1.0,
+            SeasonMark::SouthwardEquinox => 2.0,
+            SeasonMark::SouthernSolstice => 3.0,
+        };
+        quarter * FRAC_PI_2
+    }
+}
+
 /// The four turning points of the year after a given time, world seconds.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
 pub struct SeasonMarks {
@@ -53,13 +99,20 @@ impl Planet {
     /// The next equinoxes and solstices at or after `after_s`. Exact (Kepler's equation
     /// inverted), no search.
     pub fn season_marks_after(&self, after_s: f64) -> SeasonMarks {
-        let at = |k: f64| self.orbit().time_of_star_longitude(k * FRAC_PI_2, after_s);
+        let at = |mark: SeasonMark| self.time_of_season_mark(mark, after_s);
         SeasonMarks {
-            northward_equinox_s: at(0.0),
-            northern_solstice_s: at(1.0),
-            southward_equinox_s: at(2.0),
-            southern_solstice_s: at(3.0),
+            northward_equinox_s: at(SeasonMark::NorthwardEquinox),
+            northern_solstice_s: at(SeasonMark::NorthernSolstice),
+            southward_equinox_s: at(SeasonMark::SouthwardEquinox),
+            southern_solstice_s: at(SeasonMark::SouthernSolstice),
         }
+    }
+
+    /// The first instant at or after `after_s` at which the star stands at `mark`, world
+    /// seconds. Exact (Kepler's equation inverted), no search.
+    pub fn time_of_season_mark(&self, mark: SeasonMark, after_s: f64) -> f64 {
+        self.orbit()
+            .time_of_star_longitude(mark.ecliptic_longitude_rad(), after_s)
     }
 
     /// Lengths of the four northern seasons.

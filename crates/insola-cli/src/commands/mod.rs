@@ -4,6 +4,7 @@ pub mod check;
 pub mod climate;
 pub mod colour_map;
 pub mod day;
+pub mod events;
 pub mod list;
 pub mod map;
 pub mod output;

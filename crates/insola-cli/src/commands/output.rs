@@ -2,6 +2,11 @@
 
 use serde::Serialize;
 
+/// The caution every output that shows real-world numbers carries (help text, tables, JSON).
+pub const CAUTION: &str = "Insola's numbers are for games and invented worlds. They are not for navigation, \
+solar-energy engineering, or decisions about health and sun exposure. For real places, use \
+official almanacs and local professional practice.";
+
 /// Prints a value as pretty JSON on standard output.
 pub fn print_json<T: Serialize>(value: &T) -> Result<(), String> {
     let text = serde_json::to_string_pretty(value).map_err(|e| e.to_string())?;

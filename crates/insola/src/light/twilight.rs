@@ -52,10 +52,11 @@ pub const TWILIGHT_BLUE_POWER: f64 = 0.8;
 /// Altitude, in degrees, above which the IES clear-sky curve is used as it is.
 pub const DAYLIGHT_JOIN_DEG: f64 = 3.0;
 
-/// Part of the day by the star's geometric altitude.
+/// Part of the day by the star's geometric altitude: the one set of twilight bands that the
+/// lighting state, the sky light and the event finder all use.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
 pub enum TwilightPhase {
-    /// Star above its rise/set altitude.
+    /// Star above its rise/set altitude (the star's light is on: `BodyLight::is_up`).
     Day,
     /// Between the rise/set altitude and −6°.
     Civil,
@@ -67,16 +68,31 @@ pub enum TwilightPhase {
     Night,
 }
 
+impl std::fmt::Display for TwilightPhase {
+    /// `day`, `civil twilight`, `nautical twilight`, `astronomical twilight`, `night`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        match self {
+            TwilightPhase::Day => f.write_str("day"),
+            TwilightPhase::Night => f.write_str("night"),
+            TwilightPhase::Civil => write!(f, "{} twilight", TwilightBand::Civil),
+            TwilightPhase::Nautical => write!(f, "{} twilight", TwilightBand::Nautical),
+            TwilightPhase::Astronomical => write!(f, "{} twilight", TwilightBand::Astronomical),
+        }
+    }
+}
+
 impl TwilightPhase {
     /// The phase for a geometric altitude of the star's centre and the world's rise/set
-    /// altitude (both radians; the rise altitude is clamped to 0 … −6°). On airless worlds the
-    /// phases only name altitude bands. NaN gives `Night`.
+    /// altitude (both radians; the rise altitude is clamped to 0 … −6°). Day is strictly above
+    /// the rise altitude, the same rule as the star's `is_up`, so the phase turns to day
+    /// exactly at the rise event; each twilight includes its lower limit. On airless worlds
+    /// the phases only name altitude bands. NaN gives `Night`.
     pub fn from_altitude(geometric_altitude_rad: f64, rise_altitude_rad: f64) -> Self {
         let h = geometric_altitude_rad.to_degrees();
         let rise = rise_altitude_rad
             .to_degrees()
             .clamp(CIVIL_TWILIGHT_DEG, 0.0);
-        if h >= rise {
+        if h > rise {
             Self::Day
         } else if h >= CIVIL_TWILIGHT_DEG {
             Self::Civil
@@ -86,6 +102,80 @@ impl TwilightPhase {
             Self::Astronomical
         } else {
             Self::Night
+        }
+    }
+
+    /// The twilight this phase is, if it is one.
+    pub fn band(self) -> Option<TwilightBand> {
+        match self {
+            TwilightPhase::Civil => Some(TwilightBand::Civil),
+            TwilightPhase::Nautical => Some(TwilightBand::Nautical),
+            TwilightPhase::Astronomical => Some(TwilightBand::Astronomical),
+            TwilightPhase::Day | TwilightPhase::Night => None,
+        }
+    }
+}
+
+/// One of the three twilights, named by its band of the star's altitude; its lower limit is
+/// the boundary crossed at its dawn and dusk.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+pub enum TwilightBand {
+    /// Rise/set altitude down to −6° ([`CIVIL_TWILIGHT_DEG`]).
+    Civil,
+    /// −6° down to −12° ([`NAUTICAL_TWILIGHT_DEG`]).
+    Nautical,
+    /// −12° down to −18° ([`ASTRONOMICAL_TWILIGHT_DEG`]).
+    Astronomical,
+}
+
+impl std::fmt::Display for TwilightBand {
+    /// `civil`, `nautical` or `astronomical`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            TwilightBand::Civil => "civil",
+            TwilightBand::Nautical => "nautical",
+            TwilightBand::Astronomical => "astronomical",
+        })
+    }
+}
+
+impl TwilightBand {
+    /// All three, from the horizon down.
+    pub const ALL: [TwilightBand; 3] = [
+        TwilightBand::Civil,
+        TwilightBand::Nautical,
+        TwilightBand::Astronomical,
+    ];
+
+    /// Altitude of the star's centre at the band's lower limit, degrees (−6, −12, −18).
+    pub fn lower_limit_deg(self) -> f64 {
+        match self {
+            TwilightBand::Civil => CIVIL_TWILIGHT_DEG,
+            TwilightBand::Nautical => NAUTICAL_TWILIGHT_DEG,
+            TwilightBand::Astronomical => ASTRONOMICAL_TWILIGHT_DEG,
+        }
+    }
+
+    /// Altitude of the star's centre at the band's lower limit, radians.
+    pub fn lower_limit_rad(self) -> f64 {
+        self.lower_limit_deg().to_radians()
+    }
+
+    /// The phase while the star is in this band.
+    pub fn phase(self) -> TwilightPhase {
+        match self {
+            TwilightBand::Civil => TwilightPhase::Civil,
+            TwilightBand::Nautical => TwilightPhase::Nautical,
+            TwilightBand::Astronomical => TwilightPhase::Astronomical,
+        }
+    }
+
+    /// The phase just below the band's lower limit (the next deeper band, or night).
+    pub fn phase_below(self) -> TwilightPhase {
+        match self {
+            TwilightBand::Civil => TwilightPhase::Nautical,
+            TwilightBand::Nautical => TwilightPhase::Astronomical,
+            TwilightBand::Astronomical => TwilightPhase::Night,
         }
     }
 }
@@ -235,6 +325,16 @@ mod tests {
         assert_eq!(p(-12.5), TwilightPhase::Astronomical);
         assert_eq!(p(-18.5), TwilightPhase::Night);
         assert_eq!(p(f64::NAN), TwilightPhase::Night);
+        // Day is strictly above the rise altitude (as `is_up`); each twilight keeps its limit.
+        assert_eq!(p(STANDARD_RISE_ALTITUDE_DEG), TwilightPhase::Civil);
+        for band in TwilightBand::ALL {
+            // (Degrees to radians and back is not exact, hence the small offset.)
+            assert_eq!(p(band.lower_limit_deg() + 1e-9), band.phase());
+            assert_eq!(p(band.lower_limit_deg() - 1e-6), band.phase_below());
+            assert_eq!(band.phase().band(), Some(band));
+        }
+        assert_eq!(TwilightPhase::Nautical.to_string(), "nautical twilight");
+        assert_eq!(TwilightPhase::Day.to_string(), "day");
         let s = ron::to_string(&TwilightPhase::Civil).unwrap();
         assert_eq!(
             ron::from_str::<TwilightPhase>(&s).unwrap(),

@@ -8,12 +8,14 @@
 //! solar eclipse is seen, comes out right.
 //!
 //! One file per job: `orbit` (the ellipse, [`MoonOrbit`]), `view` (where a moon stands for a
-//! place, [`MoonView`]), `light` (moonlight), `rise` (rise and set). A moon's world-file section is
+//! place, [`MoonView`]), `light` (moonlight), `rise` (rise and set), `shadow` (how far a moon
+//! is from the planet's shadow, for the event finder). A moon's world-file section is
 //! [`crate::world::MoonSpec`].
 
 mod light;
 mod orbit;
 mod rise;
+mod shadow;
 mod view;
 
 pub use orbit::*;

@@ -18,8 +18,26 @@ impl Planet {
         crate::light::rise_altitude_rad(self.atmosphere().refraction_scale(), r)
     }
 
-    /// Every crossing of `threshold_rad` by moon `index`'s centre in `(t0_s, t1_s]` at
-    /// `place`, in time order (moonrise when `rising`). Samples at most every 1/96 of the
+    /// Longest sampling step that follows moon `index` across this world's sky, seconds: 1/96
+    /// of the shortest of the day, the year, the moon's period and the moon's own day over a
+    /// place (`None` for a bad index).
+    pub(crate) fn moon_sky_step_s(&self, index: usize) -> Option<f64> {
+        let orbit = self.moon_orbits().get(index)?;
+        // The moon's sky period over a place: 1/P = |1/P_rotation − 1/P_moon| (standard).
+        let rot = self.spin().sense.sign() / self.spin().sidereal_day_s;
+        let rel = (rot - 1.0 / orbit.period_s).abs();
+        let moon_day = if rel > 0.0 { 1.0 / rel } else { f64::INFINITY };
+        Some(
+            self.day_s()
+                .min(orbit.period_s)
+                .min(moon_day)
+                .min(self.year_s())
+                / 96.0,
+        )
+    }
+
+    /// Every crossing of `threshold_rad` by moon `index`'s centre in `[t0_s, t1_s)` at
+    /// `place`, in time order (moonrise when `rising`; see [`crate::events::Crossing`]). Samples at most every 1/96 of the
     /// shortest of the day, the moon's period and the moon's own day over this place.
     pub fn moon_altitude_crossings_into(
         &self,
@@ -30,19 +48,9 @@ impl Planet {
         threshold_rad: f64,
         out: &mut Vec<crate::events::Crossing>,
     ) {
-        let Some(orbit) = self.moon_orbits().get(index) else {
+        let Some(max_step) = self.moon_sky_step_s(index) else {
             return;
         };
-        // The moon's sky period over a place: 1/P = |1/P_rotation − 1/P_moon| (standard).
-        let rot = self.spin().sense.sign() / self.spin().sidereal_day_s;
-        let rel = (rot - 1.0 / orbit.period_s).abs();
-        let moon_day = if rel > 0.0 { 1.0 / rel } else { f64::INFINITY };
-        let max_step = self
-            .day_s()
-            .min(orbit.period_s)
-            .min(moon_day)
-            .min(self.year_s())
-            / 96.0;
         let f = |t: f64| {
             let i = self.star_instant(t);
             self.moon_view(&i, index, place)

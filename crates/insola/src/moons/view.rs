@@ -31,6 +31,24 @@ pub struct MoonView {
     pub shadow_fraction: f64,
 }
 
+/// Angles seen from a moon that decide its eclipse: it is in the planet's shadow while the
+/// separation is below the sum of the radii.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub(crate) struct ShadowGeometry {
+    /// Angle between the planet's centre and the star's, radians.
+    pub(crate) separation_rad: f64,
+    /// Angular radius of the star, radians.
+    pub(crate) star_radius_rad: f64,
+    /// Angular radius of the planet, radians.
+    pub(crate) planet_radius_rad: f64,
+}
+
+/// Angle between two vectors (any length), radians in `[0, π]`; accurate for small angles too,
+/// where the arccosine of the dot product loses half its digits.
+pub(crate) fn angle_between(a: DVec3, b: DVec3) -> f64 {
+    a.cross(b).length().atan2(a.dot(b))
+}
+
 impl Planet {
     /// Observer position relative to the planet's centre, ecliptic frame, metres.
     fn observer_offset(&self, instant: &StarInstant, place: Place) -> DVec3 {
@@ -46,6 +64,17 @@ impl Planet {
     fn star_offset(&self, instant: &StarInstant) -> DVec3 {
         let (s, c) = instant.ecliptic_longitude_rad.sin_cos();
         DVec3::new(c, s, 0.0) * (instant.distance_factor * self.semi_major_axis_m())
+    }
+
+    /// The planet's disc against the star's, seen from a moon at `moon` (planet-centred,
+    /// ecliptic frame, metres): the one geometry of a moon's eclipse.
+    pub(crate) fn shadow_geometry(&self, instant: &StarInstant, moon: DVec3) -> ShadowGeometry {
+        let star = self.star_offset(instant);
+        ShadowGeometry {
+            separation_rad: angle_between(-moon, star - moon),
+            star_radius_rad: angular_radius(self.star_radius_m(), (star - moon).length()),
+            planet_radius_rad: angular_radius(self.body().radius_km * 1000.0, moon.length()),
+        }
     }
 
     /// Where moon `index` stands for `place` at a precomputed instant; `None` for a bad index.
@@ -67,22 +96,18 @@ impl Planet {
         );
         let (alt, az) = altitude_azimuth(enu);
         let to_star_obs = (star - obs).normalize();
-        let elongation = u.dot(to_star_obs).clamp(-1.0, 1.0).acos();
+        let elongation = angle_between(u, to_star_obs);
         let moon_to_star = (star - moon).normalize();
         let moon_to_obs = -u;
-        let phase = moon_to_star.dot(moon_to_obs).clamp(-1.0, 1.0).acos();
+        let phase = angle_between(moon_to_star, moon_to_obs);
         let moon_r = angular_radius(orbit.radius_m, dist);
         let covered = covered_fraction(instant.angular_radius_rad, moon_r, elongation);
-        // Seen from the moon: the planet's disc against the star's.
-        let moon_to_planet = -moon;
-        let sep = moon_to_planet
-            .normalize()
-            .dot(moon_to_star)
-            .clamp(-1.0, 1.0)
-            .acos();
-        let star_r_at_moon = angular_radius(self.star_radius_m(), (star - moon).length());
-        let planet_r_at_moon = angular_radius(self.body().radius_km * 1000.0, moon.length());
-        let shadow = moon_shadow_dimming(star_r_at_moon, planet_r_at_moon, sep);
+        let shade = self.shadow_geometry(instant, moon);
+        let shadow = moon_shadow_dimming(
+            shade.star_radius_rad,
+            shade.planet_radius_rad,
+            shade.separation_rad,
+        );
         Some(MoonView {
             direction_enu: enu,
             altitude_rad: alt,
