@@ -72,7 +72,7 @@ fn tend_the_farm(
     let new_days: Vec<(i64, f64)> = notices
         .read()
         .filter_map(|n| match n.kind {
-            SkyNoticeKind::NewDay { day } => Some((day, n.t_s)),
+            SkyEventKind::NewDay { day } => Some((day, n.world_time_s)),
             _ => None,
         })
         .collect();

@@ -63,29 +63,12 @@ fn print_notices(mut notices: MessageReader<SkyNotice>, world: Res<ActiveWorld>)
         return;
     };
     for notice in notices.read() {
-        let date = planet.date_at(notice.t_s);
-        let what = match notice.kind {
-            SkyNoticeKind::MoonRise { moon }
-            | SkyNoticeKind::MoonSet { moon }
-            | SkyNoticeKind::FullMoon { moon }
-            | SkyNoticeKind::NewMoon { moon }
-            | SkyNoticeKind::MoonEclipseBegins { moon }
-            | SkyNoticeKind::MoonEclipseEnds { moon }
-            | SkyNoticeKind::StarEclipseBegins { moon }
-            | SkyNoticeKind::StarEclipseEnds { moon } => {
-                // The notice names the moon by its index; say its name instead.
-                let name = planet
-                    .spec()
-                    .moons
-                    .get(moon)
-                    .map_or("a moon", |m| m.name.as_str());
-                notice
-                    .kind
-                    .to_string()
-                    .replacen(&format!("moon {moon}"), name, 1)
-            }
-            kind => kind.to_string(),
-        };
+        let date = planet.date_at(notice.world_time_s);
+        // Notices name moons by index; say their names instead.
+        let mut what = notice.kind.to_string();
+        for (i, moon) in planet.spec().moons.iter().enumerate() {
+            what = what.replace(&format!("moon {i}"), &moon.name);
+        }
         println!(
             "year {} day {:>3} {}  {what}",
             date.year,

@@ -34,7 +34,7 @@ use bevy::prelude::*;
 use insola::lighting::LightingState;
 use insola::{Place, Planet};
 
-use crate::sky_state::SkyBody;
+use crate::sky_state::SceneBody;
 use crate::{ActiveWorld, InsolaSettings, SceneCompass, SkyState, WorldClock};
 
 /// How the lights guard against flashing at high clock rates (see the [module docs](self)).
@@ -91,9 +91,9 @@ pub struct DisplayedSky {
     /// Which cycle is held at its mean.
     pub hold: SkyHold,
     /// The star's light as shown.
-    pub star: SkyBody,
+    pub star: SceneBody,
     /// Each moon's light as shown (all down while a cycle is held).
-    pub moons: Vec<SkyBody>,
+    pub moons: Vec<SceneBody>,
     /// Diffuse light of the sky on a horizontal surface, lux.
     pub sky_illuminance_lux: f64,
     /// Colour of the sky's light, linear sRGB with the largest channel 1.
@@ -186,7 +186,7 @@ fn mean_sky(
     };
     let compass = &settings.compass;
     let star_h = star_h / n;
-    let mut star = SkyBody::from_core(&highest.star, compass);
+    let mut star = SceneBody::from_core(&highest.star, compass);
     let up = highest.star.direction_enu.z;
     // The star is shown where it stands highest, giving the day's mean light on the ground.
     star.is_up = star_h > 0.0 && up > 0.0;
@@ -198,10 +198,10 @@ fn mean_sky(
     let moons = highest
         .moons
         .iter()
-        .map(|m| SkyBody {
+        .map(|m| SceneBody {
             is_up: false,
             illuminance_lux: 0.0,
-            ..SkyBody::from_core(&m.light, compass)
+            ..SceneBody::from_core(&m.light, compass)
         })
         .collect();
     DisplayedSky {

@@ -111,10 +111,10 @@ pub use parts::InsolaPlugins;
 /// The most used types: `use bevy_insola::prelude::*;`.
 pub mod prelude {
     pub use crate::{
-        ActiveWorld, DaylightPhase, ExposureFollowsSky, InsolaPlugins, InsolaSettings,
-        InsolaSystems, LightAttenuation, LocalConditions, MoonLight, ObserverInstant, SceneCompass,
-        SeasonOfYear, SeasonalClimate, SkyNotice, SkyNoticeKind, SkyState, StarLight, SurfacePlace,
-        ThermalSeason, WorldChanged, WorldClock, WorldInstant, WorldRejected,
+        ActiveWorld, ExposureFollowsSky, InsolaPlugins, InsolaSettings, InsolaSystems,
+        LightAttenuation, LocalConditions, MoonLight, ObserverInstant, SceneCompass, SeasonOfYear,
+        SeasonalClimate, SkyBody, SkyEventKind, SkyNotice, SkyState, StarLight, SurfacePlace,
+        ThermalSeason, TwilightPhase, WorldChanged, WorldClock, WorldInstant, WorldRejected,
     };
 }
 

@@ -18,9 +18,9 @@
 use bevy::color::{Color, LinearRgba};
 use bevy::prelude::*;
 
-use crate::settings::{InsolaSettings, SceneCompass};
 use crate::flash_guard::DisplayedSky;
-use crate::sky_state::SkyBody;
+use crate::settings::{InsolaSettings, SceneCompass};
+use crate::sky_state::SceneBody;
 
 /// Marks a directional light driven by the star.
 ///
@@ -84,7 +84,7 @@ pub fn light_rotation(to_body: Vec3, compass: &SceneCompass) -> Quat {
 }
 
 fn drive_light(
-    body: Option<&SkyBody>,
+    body: Option<&SceneBody>,
     compass: &SceneCompass,
     light: &mut Mut<DirectionalLight>,
     transform: &mut Mut<Transform>,

@@ -113,51 +113,8 @@ impl From<insola::climate::Season> for ThermalSeason {
     }
 }
 
-/// The four turning points of the year (named for the north, as in the core).
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Reflect, Serialize, Deserialize)]
-#[reflect(Debug, PartialEq, Clone)]
-pub enum SeasonMark {
-    /// The star crosses the equator going north (ecliptic longitude 0°).
-    NorthwardEquinox,
-    /// The star stands farthest north (90°).
-    NorthernSolstice,
-    /// The star crosses the equator going south (180°).
-    SouthwardEquinox,
-    /// The star stands farthest south (270°).
-    SouthernSolstice,
-}
-
-impl std::fmt::Display for SeasonMark {
-    /// `northward equinox`, `northern solstice`, `southward equinox`, `southern solstice`.
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(match self {
-            SeasonMark::NorthwardEquinox => "northward equinox",
-            SeasonMark::NorthernSolstice => "northern solstice",
-            SeasonMark::SouthwardEquinox => "southward equinox",
-            SeasonMark::SouthernSolstice => "southern solstice",
-        })
-    }
-}
-
-impl SeasonMark {
-    /// All four, in the order of the year from the northward equinox.
-    pub const ALL: [SeasonMark; 4] = [
-        SeasonMark::NorthwardEquinox,
-        SeasonMark::NorthernSolstice,
-        SeasonMark::SouthwardEquinox,
-        SeasonMark::SouthernSolstice,
-    ];
-
-    /// The star's ecliptic longitude at this mark, radians.
-    pub fn ecliptic_longitude_rad(self) -> f64 {
-        match self {
-            SeasonMark::NorthwardEquinox => 0.0,
-            SeasonMark::NorthernSolstice => FRAC_PI_2,
-            SeasonMark::SouthwardEquinox => 2.0 * FRAC_PI_2,
-            SeasonMark::SouthernSolstice => 3.0 * FRAC_PI_2,
-        }
-    }
-}
+/// The four turning points of the year: the core's one definition.
+pub use insola::seasons::SeasonMark;
 
 #[cfg(test)]
 mod tests {
@@ -171,13 +128,10 @@ mod tests {
         );
         assert_eq!(SeasonOfYear::Autumn.to_string(), "autumn");
         assert_eq!(ThermalSeason::Steady.to_string(), "steady");
-        let turn = crate::SkyNoticeKind::SeasonTurn {
-            mark: SeasonMark::SouthwardEquinox,
-            begins: SeasonOfYear::Autumn,
-        };
-        assert_eq!(turn.to_string(), "southward equinox: autumn begins");
-        let dawn = crate::SkyNoticeKind::Dawn(crate::TwilightBand::Nautical);
-        assert_eq!(dawn.to_string(), "dawn: nautical twilight begins");
+        assert_eq!(
+            SeasonOfYear::beginning_at(SeasonMark::SouthwardEquinox, 0.5),
+            SeasonOfYear::Autumn
+        );
     }
 
     #[test]

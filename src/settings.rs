@@ -6,6 +6,8 @@ use bevy::prelude::*;
 use insola::Place;
 use insola::lighting::LightMode;
 
+use insola::sky_events::EventFilter;
+
 use crate::flash_guard::FlashGuard;
 
 /// Which way the scene's axes point on the planet's surface.
@@ -162,6 +164,9 @@ pub struct InsolaSettings {
     /// Keeps the displayed light from flashing at high clock rates (photosensitivity). Default
     /// [`FlashGuard::On`]; turn it off only for tools and tests. See [`crate::flash_guard`].
     pub flash_guard: FlashGuard,
+    /// Which sky events are sent as [`SkyNotice`](crate::SkyNotice)s. Default: all of them.
+    #[reflect(ignore)]
+    pub notices: EventFilter,
 }
 
 impl Default for InsolaSettings {
@@ -175,6 +180,7 @@ impl Default for InsolaSettings {
             observer_interval: ObserverInterval::EveryFrame,
             max_notified_span_s: 2.0 * 1000.0 * 86_400.0,
             flash_guard: FlashGuard::default(),
+            notices: EventFilter::all(),
         }
     }
 }

@@ -18,54 +18,13 @@ use crate::season::SeasonOfYear;
 use crate::settings::{InsolaSettings, SceneCompass};
 use crate::world_asset::ActiveWorld;
 
-/// How light the sky is at the reference place, by the star's altitude.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Default, Reflect)]
-#[reflect(Debug, PartialEq, Default, Clone)]
-pub enum DaylightPhase {
-    /// The star is up (above the standard rise altitude).
-    Day,
-    /// The star is down by at most 6°.
-    CivilTwilight,
-    /// Down by 6° to 12°.
-    NauticalTwilight,
-    /// Down by 12° to 18°.
-    AstronomicalTwilight,
-    /// Down by more than 18°. Default (before a world is loaded).
-    #[default]
-    Night,
-}
-
-impl std::fmt::Display for DaylightPhase {
-    /// Plain words: `day`, `civil twilight`, `nautical twilight`, `astronomical twilight`,
-    /// `night`.
-    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
-        f.write_str(match self {
-            DaylightPhase::Day => "day",
-            DaylightPhase::CivilTwilight => "civil twilight",
-            DaylightPhase::NauticalTwilight => "nautical twilight",
-            DaylightPhase::AstronomicalTwilight => "astronomical twilight",
-            DaylightPhase::Night => "night",
-        })
-    }
-}
-
-impl DaylightPhase {
-    fn from_core(phase: insola::light::TwilightPhase) -> DaylightPhase {
-        use insola::light::TwilightPhase as T;
-        match phase {
-            T::Day => DaylightPhase::Day,
-            T::Civil => DaylightPhase::CivilTwilight,
-            T::Nautical => DaylightPhase::NauticalTwilight,
-            T::Astronomical => DaylightPhase::AstronomicalTwilight,
-            T::Night => DaylightPhase::Night,
-        }
-    }
-}
+/// Day, a twilight or night at the reference place: the core's one set of bands.
+pub use insola::light::TwilightPhase;
 
 /// One body (the star or a moon) as the scene sees it.
 #[derive(Debug, Clone, Copy, PartialEq, Default, Reflect)]
 #[reflect(Debug, PartialEq, Default, Clone)]
-pub struct SkyBody {
+pub struct SceneBody {
     /// Unit vector from the scene toward the body, in scene axes (see [`SceneCompass`]).
     pub direction: Vec3,
     /// Unit vector toward the body in the local east-north-up frame (`f64`, from the core).
@@ -88,10 +47,10 @@ pub struct SkyBody {
     pub is_up: bool,
 }
 
-impl SkyBody {
-    pub(crate) fn from_core(body: &BodyLight, compass: &SceneCompass) -> SkyBody {
+impl SceneBody {
+    pub(crate) fn from_core(body: &BodyLight, compass: &SceneCompass) -> SceneBody {
         let [r, g, b] = body.colour_linear_srgb;
-        SkyBody {
+        SceneBody {
             direction: compass.to_scene(body.direction_enu).normalize_or_zero(),
             direction_enu: body.direction_enu,
             altitude_rad: body.altitude_rad,
@@ -117,7 +76,7 @@ pub struct SkyMoon {
     /// The moon's name from the world file.
     pub name: String,
     /// Direction and light.
-    pub body: SkyBody,
+    pub body: SceneBody,
     /// Phase angle (star–moon–observer), radians: 0 full, π new.
     pub phase_angle_rad: f64,
     /// Illuminated fraction of the disc, 0–1.
@@ -158,9 +117,9 @@ impl SkyDate {
 ///
 /// ```
 /// use bevy::prelude::*;
-/// use bevy_insola::{SkyState, DaylightPhase};
+/// use bevy_insola::{SkyState, TwilightPhase};
 /// fn report(sky: Res<SkyState>) {
-///     if sky.ready && sky.phase == DaylightPhase::Day {
+///     if sky.ready && sky.phase == TwilightPhase::Day {
 ///         info!("star at {:.1}°, {:.0} lux", sky.star.altitude_rad.to_degrees(), sky.star.illuminance_lux);
 ///     }
 /// }
@@ -174,7 +133,7 @@ pub struct SkyState {
     /// World time of this state, seconds since time zero.
     pub world_time_s: f64,
     /// The star.
-    pub star: SkyBody,
+    pub star: SceneBody,
     /// Fraction of the star's disc covered by moons, 0–1 (already applied to its light).
     pub star_eclipse_fraction: f64,
     /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
@@ -185,8 +144,9 @@ pub struct SkyState {
     pub sky_color: LinearRgba,
     /// Each moon, in world-file order.
     pub moons: Vec<SkyMoon>,
-    /// Day, a twilight, or night.
-    pub phase: DaylightPhase,
+    /// Day, a twilight, or night (the core's bands; not reflected).
+    #[reflect(ignore)]
+    pub phase: TwilightPhase,
     /// Total illuminance on a horizontal surface at the ground (star, sky and moons), lux; what
     /// an incident-light meter lying on the ground reads, whichever light mode the lights use.
     /// Feeds [`crate::ExposureFollowsSky`].
@@ -215,13 +175,13 @@ impl SkyState {
         let place = settings.reference_place_clamped();
         let lighting = planet.lighting(t_s, place, settings.attenuation.light_mode());
         let compass = &settings.compass;
-        let star = SkyBody::from_core(&lighting.star, compass);
+        let star = SceneBody::from_core(&lighting.star, compass);
         let moons: Vec<SkyMoon> = lighting
             .moons
             .iter()
             .map(|m| SkyMoon {
                 name: m.name.clone(),
-                body: SkyBody::from_core(&m.light, compass),
+                body: SceneBody::from_core(&m.light, compass),
                 phase_angle_rad: m.phase_angle_rad,
                 illuminated_fraction: m.illuminated_fraction,
                 eclipse_fraction: m.eclipse_fraction,
@@ -242,7 +202,7 @@ impl SkyState {
             sky_illuminance_lux: lighting.sky.illuminance_lux,
             sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),
             moons,
-            phase: DaylightPhase::from_core(lighting.twilight),
+            phase: lighting.twilight,
             horizontal_illuminance_lux: horizontal,
             date: SkyDate {
                 year: date.year,

@@ -53,9 +53,8 @@ pub fn scattering_medium(planet: &Planet) -> Option<ScatteringMedium> {
     if air.is_airless() {
         return None;
     }
-    let rayleigh =
-        (air.surface_pressure_kpa / insola::light::REFERENCE_PRESSURE_KPA * air.rayleigh_scale)
-            as f32;
+    let rayleigh = (air.surface_pressure_kpa / insola::light::REFERENCE_PRESSURE_KPA
+        * air.rayleigh_scale) as f32;
     let haze = (air.aerosol_angstrom_beta / ENGINE_HAZE_ANGSTROM_BETA) as f32;
     let mut medium = ScatteringMedium::earth(256, 256);
     // The engine's Earth medium: term 0 Rayleigh scattering, 1 haze (Mie), 2 ozone absorption

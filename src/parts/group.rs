@@ -133,9 +133,7 @@ impl PluginGroup for InsolaPlugins {
         let with_air = self.engine_atmosphere_from_world;
         let group = PluginGroupBuilder::start::<Self>()
             .add(InsolaClockPlugin { clock })
-            .add(InsolaWorldPlugin {
-                source: self.world,
-            })
+            .add(InsolaWorldPlugin { source: self.world })
             .add(InsolaSkyPlugin {
                 settings: self.settings.clone(),
             })

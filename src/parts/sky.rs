@@ -19,7 +19,6 @@ impl Plugin for InsolaSkyPlugin {
         super::configure_sets(app);
         super::insert_settings_once(app, &self.settings);
         app.register_type::<SkyState>()
-            .register_type::<SkyNotice>()
             .init_resource::<SkyState>()
             .add_message::<SkyNotice>()
             .add_systems(

@@ -2,12 +2,11 @@
 //! with a message that names what is wrong, the last good world keeps running, and a good file
 //! afterwards is taken up again.
 
-
+use crate::common::assets::*;
+use crate::common::*;
 use bevy::prelude::*;
 use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
-use crate::common::assets::*;
-use crate::common::*;
 
 #[path = "../../crates/insola/tests/support/bad_world_corpus.rs"]
 mod bad_world_corpus;

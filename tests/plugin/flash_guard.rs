@@ -52,7 +52,8 @@ fn lit_app(rate: f64, fps: f64, guard: FlashGuard) -> App {
 fn shown_luminance(app: &mut App) -> f64 {
     let world = app.world_mut();
     let mut star_h = 0.0;
-    let mut q = world.query_filtered::<(&DirectionalLight, &Transform, &Visibility), With<StarLight>>();
+    let mut q =
+        world.query_filtered::<(&DirectionalLight, &Transform, &Visibility), With<StarLight>>();
     for (light, transform, visibility) in q.iter(world) {
         if *visibility == Visibility::Hidden {
             continue;
@@ -136,7 +137,10 @@ fn no_more_than_three_flashes_a_second_at_any_rate() {
 fn without_the_guard_the_same_runs_flash() {
     // Brindle's day in 0.072 real s at 1e6: the exact sky swings many times a second.
     let flashes = run(1e6, 60.0, FlashGuard::Off);
-    assert!(flashes > 3, "the unguarded light flashed only {flashes} times");
+    assert!(
+        flashes > 3,
+        "the unguarded light flashed only {flashes} times"
+    );
 }
 
 #[test]

@@ -1,13 +1,12 @@
 //! Star and moon lights, ambient light and attenuation modes in a headless app.
 
-
 use std::time::Duration;
 
+use crate::common::*;
 use bevy::color::LinearRgba;
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{LightAttenuation, relative_luminance};
-use crate::common::*;
 use insola::Place;
 use insola::lighting::LightMode;
 
@@ -93,7 +92,7 @@ fn star_light_is_off_at_night_and_moon_light_without_moons() {
         .query_filtered::<&Visibility, With<MoonLight>>();
     assert_eq!(*moons.single(app.world()).unwrap(), Visibility::Hidden);
     let sky = app.world().resource::<SkyState>();
-    assert_ne!(sky.phase, DaylightPhase::Day);
+    assert_ne!(sky.phase, TwilightPhase::Day);
     // Noon: on.
     go_to(
         &mut app,

@@ -1,12 +1,11 @@
 //! Observers at many places, their cadence, the map projection and the climate.
 
-
 use std::time::Duration;
 
+use crate::common::*;
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{MapProjection, ObserverInstant, ObserverInterval, PlaceFromPosition};
-use crate::common::*;
 
 const FRAME: Duration = Duration::from_millis(16);
 

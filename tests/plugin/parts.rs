@@ -27,15 +27,17 @@ fn a_clock_and_notices_server_builds_no_climate() {
         .init_resource::<Collected>()
         .add_systems(Last, collect);
     // An observer entity is ignored without the observers part, and nothing panics.
-    app.world_mut()
-        .spawn((SurfacePlace::from_degrees(10.0, 20.0).unwrap(), LocalConditions::default()));
+    app.world_mut().spawn((
+        SurfacePlace::from_degrees(10.0, 20.0).unwrap(),
+        LocalConditions::default(),
+    ));
     for _ in 0..200 {
         app.update();
     }
     assert!(app.world().get_resource::<SeasonalClimate>().is_none());
     assert!(app.world().resource::<SkyState>().ready);
     assert!(
-        count(&app, SkyNoticeKind::StarRise) >= 5,
+        count(&app, SkyEventKind::Rise(SkyBody::Star(0))) >= 5,
         "200 h of a 20 h day has sunrises: {:?}",
         notices(&app).len()
     );
@@ -51,10 +53,15 @@ fn observers_without_the_climate_part_report_the_sky() {
                 .build()
                 .disable::<InsolaClimatePlugin>(),
         )
-        .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_millis(16)));
+        .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_millis(
+            16,
+        )));
     let e = app
         .world_mut()
-        .spawn((SurfacePlace::from_degrees(10.0, 20.0).unwrap(), LocalConditions::default()))
+        .spawn((
+            SurfacePlace::from_degrees(10.0, 20.0).unwrap(),
+            LocalConditions::default(),
+        ))
         .id();
     app.update();
     app.update();
@@ -71,7 +78,9 @@ fn a_world_file_without_an_asset_server_is_rejected() {
     app.update();
     let world = app.world().resource::<ActiveWorld>();
     assert!(world.planet().is_none());
-    let error = world.last_error().expect("the missing asset server is an error");
+    let error = world
+        .last_error()
+        .expect("the missing asset server is an error");
     assert!(error.contains("AssetPlugin"), "{error}");
     let rejected: Vec<_> = app
         .world_mut()

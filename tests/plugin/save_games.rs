@@ -24,8 +24,8 @@ fn round_trips<T: Serialize + DeserializeOwned + PartialEq + std::fmt::Debug>(va
 fn clocks_round_trip_through_json_and_ron() {
     // The default clock has no frame-time cap: JSON has no infinity, so it must not be one.
     round_trips(&WorldClock::default());
-    let mut clock = WorldClock::starting_at(WorldInstant::from_parts(123_456_789, 0.25))
-        .with_rate(-4000.0);
+    let mut clock =
+        WorldClock::starting_at(WorldInstant::from_parts(123_456_789, 0.25)).with_rate(-4000.0);
     clock.max_real_delta_s = Some(0.25);
     clock.real_seconds_per_day = Some(90.0);
     clock.pause();
@@ -72,7 +72,13 @@ fn a_calendar_jump_outside_the_year_is_refused() {
     let days = (planet.year_s() / planet.day_s()).ceil() as u64;
     let err = clock.jump_to_date(&planet, 2, days + 5, 1.0).unwrap_err();
     assert!(
-        matches!(err, ClockError::OutOfRange { what: "day_of_year", .. }),
+        matches!(
+            err,
+            ClockError::OutOfRange {
+                what: "day_of_year",
+                ..
+            }
+        ),
         "{err}"
     );
     clock.jump_to_date(&planet, 2, days - 2, 1.0).unwrap();

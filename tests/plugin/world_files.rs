@@ -1,14 +1,13 @@
 //! World files through the asset loader, hot reload, and a bad file keeping the last good world.
 
-
 use std::path::PathBuf;
 
+use crate::common::assets::*;
+use crate::common::*;
 use bevy::asset::{AssetServer, Assets};
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
 use bevy_insola::{WorldChangeCause, WorldFile};
-use crate::common::assets::*;
-use crate::common::*;
 
 #[test]
 fn the_shipped_worlds_load_through_the_asset_loader() {

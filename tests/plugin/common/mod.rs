@@ -75,7 +75,7 @@ pub fn notices(app: &App) -> &[SkyNotice] {
     &app.world().resource::<Collected>().0
 }
 
-pub fn count(app: &App, kind: SkyNoticeKind) -> usize {
+pub fn count(app: &App, kind: SkyEventKind) -> usize {
     notices(app).iter().filter(|n| n.kind == kind).count()
 }
 

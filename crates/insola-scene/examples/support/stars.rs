@@ -114,7 +114,7 @@ pub fn turn_star_field(
         axis(DVec3::Y),
         axis(DVec3::Z),
     ));
-    let shown = if sky.phase == DaylightPhase::Day {
+    let shown = if sky.phase == TwilightPhase::Day {
         Visibility::Hidden
     } else {
         Visibility::Inherited

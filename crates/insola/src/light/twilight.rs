@@ -54,7 +54,7 @@ pub const DAYLIGHT_JOIN_DEG: f64 = 3.0;
 
 /// Part of the day by the star's geometric altitude: the one set of twilight bands that the
 /// lighting state, the sky light and the event finder all use.
-#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Default, Serialize, Deserialize)]
 pub enum TwilightPhase {
     /// Star above its rise/set altitude (the star's light is on: `BodyLight::is_up`).
     Day,
@@ -64,7 +64,8 @@ pub enum TwilightPhase {
     Nautical,
     /// Between −12° and −18°.
     Astronomical,
-    /// Below −18°.
+    /// Below −18°. The default (nothing computed yet).
+    #[default]
     Night,
 }
 
