@@ -3,6 +3,10 @@
 /// Seconds in a standard day of 86 400 SI seconds (the unit "days" in world files).
 pub const SECONDS_PER_DAY: f64 = 86_400.0;
 
+/// Stefan–Boltzmann constant σ, in W m⁻² K⁻⁴ (CODATA 2018, exact from the SI's defined h, k
+/// and c; from memory).
+pub const STEFAN_BOLTZMANN_W_M2_K4: f64 = 5.670_374_419e-8;
+
 /// Seconds in an hour.
 pub const SECONDS_PER_HOUR: f64 = 3_600.0;
 

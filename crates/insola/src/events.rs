@@ -12,8 +12,9 @@ use serde::{Deserialize, Serialize};
 
 use crate::light::TwilightBand;
 use crate::planet::Planet;
+pub use crate::search::Crossing;
+use crate::search::{crossings_of, refine_change};
 use crate::sky::Place;
-use crate::sky_events::scan::{Grid, refine_change};
 
 /// Samples of the star's height per local day used to find crossings.
 pub const EVENT_SAMPLES_PER_DAY: usize = 480;
@@ -122,17 +123,6 @@ impl Planet {
     }
 }
 
-/// One passage through an altitude threshold: the last instant on the old side, within
-/// [`crate::sky_events::EVENT_TIME_TOLERANCE_S`] of the passage.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
-pub struct Crossing {
-    /// World time of the crossing, seconds since time zero.
-    pub t_s: f64,
-    /// `true` when the body goes above the threshold (strictly: the "is up" rule), `false`
-    /// when it goes back to it or below.
-    pub rising: bool,
-}
-
 impl Planet {
     /// Every crossing of `threshold_rad` by the star's centre at `place` reported in
     /// `[t0_s, t1_s)` (each passage in `(t0_s, t1_s]`, so consecutive intervals report it
@@ -150,37 +140,6 @@ impl Planet {
         let max_step = self.day_s().min(self.year_s()) / 96.0;
         let f = |t: f64| self.star_position(t, place).altitude_rad - threshold_rad;
         crossings_of(&f, t0_s, t1_s, max_step, out);
-    }
-}
-
-/// Every sign change of `f` (positive or not) between samples at most `max_step` apart over
-/// `[t0_s, t1_s]`, each reported at the last instant before it (so in `[t0_s, t1_s)`); `rising`
-/// when `f` turns positive. Deterministic: the value at an interval's end is the value at the
-/// next interval's start, so consecutive intervals report each crossing exactly once.
-pub(crate) fn crossings_of(
-    f: &dyn Fn(f64) -> f64,
-    t0_s: f64,
-    t1_s: f64,
-    max_step: f64,
-    out: &mut Vec<Crossing>,
-) {
-    // Written to reject NaN as well as empty intervals.
-    if t1_s.partial_cmp(&t0_s) != Some(std::cmp::Ordering::Greater)
-        || max_step.partial_cmp(&0.0) != Some(std::cmp::Ordering::Greater)
-    {
-        return;
-    }
-    let grid = Grid::new(t0_s, t1_s, max_step.max((t1_s - t0_s) / 1.0e7));
-    let mut a = f(t0_s) > 0.0;
-    for (ta, tb) in grid.steps() {
-        let b = f(tb) > 0.0;
-        if a != b {
-            out.push(Crossing {
-                t_s: refine_change(ta, tb, a, &mut |t| f(t) > 0.0),
-                rising: b,
-            });
-        }
-        a = b;
     }
 }
 

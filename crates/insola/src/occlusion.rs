@@ -74,18 +74,10 @@ impl Occlusion {
 /// Safety factor on the rate bounds of [`OccluderMotion`] (common practice, no source).
 const OCCLUDER_RATE_MARGIN: f64 = 1.25;
 
-/// How fast an occluder can move against the star: what the event finder needs to walk
-/// toward an eclipse without stepping over it.
-#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
-pub struct OccluderMotion {
-    /// Upper bound on the rate of change of [`Planet::occluder_clearance_rad`], rad/s.
-    pub max_rate_rad_s: f64,
-    /// Smallest sum of the two discs' angular radii, radians: the scale of the shortest
-    /// eclipse.
-    pub min_contact_rad: f64,
-    /// Longest an eclipse could last, seconds (the occluder's synodic period, at most a year).
-    pub longest_s: f64,
-}
+/// How fast an occluder can move against the star (defined with the search primitives, which
+/// are the only thing that needs it, so that moons can give theirs without importing this
+/// module).
+pub use crate::search::OccluderMotion;
 
 impl Planet {
     /// Every occluder of this world, in a fixed order (moons in world-file order).

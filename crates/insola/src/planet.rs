@@ -9,7 +9,7 @@ use crate::constants::{
 };
 use crate::error::SpecError;
 use crate::light::{AtmosphereSpec, StarLightModel};
-use crate::moons::MoonOrbit;
+use crate::moon_orbit::MoonOrbit;
 use crate::orbit::Orbit;
 use crate::spin::{Spin, SpinSense, sidereal_from_solar_day, solar_from_sidereal_day};
 use crate::world::{BodySpec, WorldSpec, parse_utc_unix_s};

@@ -16,8 +16,8 @@ use super::albedo::IceFreeAlbedo;
 use super::forcing::BandInsolation;
 use super::grid::ClimateGrid;
 use super::spec::ClimateSpec;
+use crate::constants::STEFAN_BOLTZMANN_W_M2_K4;
 use crate::error::SpecError;
-use crate::light::STEFAN_BOLTZMANN_W_M2_K4;
 
 /// A factorised symmetric-or-not tridiagonal matrix (Thomas algorithm).
 ///

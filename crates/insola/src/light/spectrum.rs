@@ -12,8 +12,7 @@ pub const PLANCK_C1_W_M2: f64 = 3.741_771_852e-16;
 /// Second radiation constant c₂ = hc/k, in m K (CODATA exact; CIE 015 rounds it to 1.4388e-2).
 pub const PLANCK_C2_M_K: f64 = 1.438_776_877e-2;
 
-/// Stefan–Boltzmann constant σ, in W m⁻² K⁻⁴.
-pub const STEFAN_BOLTZMANN_W_M2_K4: f64 = 5.670_374_419e-8;
+pub use crate::constants::STEFAN_BOLTZMANN_W_M2_K4;
 
 /// Wavelength of sample `i` of a [`Spectrum`], in nanometres.
 pub fn wavelength_nm(i: usize) -> f64 {

@@ -7,18 +7,18 @@
 //! offset from the planet's centre is included, so a moon's parallax, and therefore where a
 //! solar eclipse is seen, comes out right.
 //!
-//! One file per job: `orbit` (the ellipse, [`MoonOrbit`]), `view` (where a moon stands for a
-//! place, [`MoonView`]), `light` (moonlight), `rise` (rise and set), `shadow` (how far a moon
-//! is from the planet's shadow, for the event finder). A moon's world-file section is
+//! One file per job: `crate::moon_orbit` (the ellipse, [`MoonOrbit`]), `view` (where a moon
+//! stands for a place, [`MoonView`]), `rise` (rise and set), `shadow` (how far a moon is from
+//! the planet's shadow, for the event finder); moonlight is `crate::lighting`'s. A moon's world-file section is
 //! [`crate::world::MoonSpec`].
 
-mod light;
-mod orbit;
 mod rise;
 mod shadow;
 mod view;
 
-pub use orbit::*;
+// The ellipse is a leaf module of its own, so that `Planet` can hold moon orbits without
+// importing the sky work here (which is written as methods on `Planet`).
+pub use crate::moon_orbit::*;
 pub use view::*;
 
 #[cfg(test)]

@@ -37,7 +37,7 @@ impl Planet {
     }
 
     /// Every crossing of `threshold_rad` by moon `index`'s centre in `[t0_s, t1_s)` at
-    /// `place`, in time order (moonrise when `rising`; see [`crate::events::Crossing`]). Samples at most every 1/96 of the
+    /// `place`, in time order (moonrise when `rising`; see [`crate::search::Crossing`]). Samples at most every 1/96 of the
     /// shortest of the day, the moon's period and the moon's own day over this place.
     pub fn moon_altitude_crossings_into(
         &self,
@@ -46,7 +46,7 @@ impl Planet {
         t0_s: f64,
         t1_s: f64,
         threshold_rad: f64,
-        out: &mut Vec<crate::events::Crossing>,
+        out: &mut Vec<crate::search::Crossing>,
     ) {
         let Some(max_step) = self.moon_sky_step_s(index) else {
             return;
@@ -57,6 +57,6 @@ impl Planet {
                 .map_or(-1.0, |v| v.altitude_rad)
                 - threshold_rad
         };
-        crate::events::crossings_of(&f, t0_s, t1_s, max_step, out);
+        crate::search::crossings_of(&f, t0_s, t1_s, max_step, out);
     }
 }

@@ -1,9 +1,9 @@
 //! How far a moon is from the planet's shadow, and how fast that can change: what the event
 //! finder walks along to find each moon eclipse.
 
-use crate::occlusion::OccluderMotion;
 use crate::orbit::OrbitExtremes;
 use crate::planet::Planet;
+use crate::search::OccluderMotion;
 
 /// Safety factor on the rate bound (common practice, no source).
 const SHADOW_RATE_MARGIN: f64 = 1.25;

@@ -4,9 +4,9 @@
 
 use super::filter::EventFilter;
 use super::kind::{EclipseStage, SkyBody, SkyEvent};
-use super::scan::{refine_change, walk_to_sign_change};
 use crate::occlusion::OccluderMotion;
 use crate::planet::Planet;
+use crate::search::{refine_change, walk_to_sign_change};
 use crate::sky::Place;
 use crate::sky_events::{EVENT_TIME_TOLERANCE_S, SkyEventKind};
 

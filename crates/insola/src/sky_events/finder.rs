@@ -3,9 +3,9 @@
 
 use super::filter::{EventFilter, EventGroup};
 use super::kind::{SkyBody, SkyEvent, SkyEventKind};
-use super::scan::Grid;
 use crate::error::QueryError;
 use crate::planet::Planet;
+use crate::search::Grid;
 use crate::sky::Place;
 
 /// Most samples one search may take: an interval that would need more is refused with

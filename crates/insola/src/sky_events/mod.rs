@@ -54,13 +54,12 @@ mod filter;
 mod finder;
 mod kind;
 mod moon;
-pub(crate) mod scan;
 mod star;
 
+pub use crate::search::EVENT_TIME_TOLERANCE_S;
 pub use filter::{EventFilter, EventGroup};
 pub use finder::MAX_EVENT_SAMPLES;
 pub use kind::{EclipseStage, MoonPhase, SkyBody, SkyEvent, SkyEventKind};
-pub use scan::EVENT_TIME_TOLERANCE_S;
 
 #[allow(unused_imports)] // for the doc links above
 use crate::planet::Planet;

@@ -6,9 +6,9 @@ use glam::DVec3;
 
 use super::filter::{EventFilter, EventGroup};
 use super::kind::{MoonPhase, SkyBody, SkyEvent, SkyEventKind};
-use super::scan::{Grid, refine_change};
 use crate::orbit::OrbitExtremes;
 use crate::planet::Planet;
+use crate::search::{Grid, refine_change};
 use crate::sky::Place;
 
 /// What a moon's sky events are decided by at one instant.

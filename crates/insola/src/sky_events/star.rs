@@ -5,9 +5,9 @@ use std::f64::consts::PI;
 
 use super::filter::{EventFilter, EventGroup};
 use super::kind::{SkyBody, SkyEvent, SkyEventKind};
-use super::scan::{Grid, refine_change};
 use crate::light::TwilightBand;
 use crate::planet::Planet;
+use crate::search::{Grid, refine_change};
 use crate::sky::Place;
 
 /// What the star's events are decided by at one instant.

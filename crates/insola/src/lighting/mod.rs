@@ -6,6 +6,8 @@
 //! renderer), [`LightMode::TopOfAtmosphere`] the light above the air (for engines whose
 //! atmosphere attenuates the light itself, so extinction is never counted twice).
 
+mod moon;
+
 use glam::DVec3;
 use serde::{Deserialize, Serialize};
 

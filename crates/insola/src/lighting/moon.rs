@@ -1,11 +1,11 @@
 //! Moonlight: reflected starlight from each moon (Lambert sphere or the measured lunar phase
 //! law), dimmed by the planet's shadow, through the air like the star's beam.
 
+use super::{BodyLight, LightMode, MoonLighting};
 use crate::light::{
     earth_moon_magnitude, illuminated_fraction, lambert_geometric_albedo, magnitude_to_lux,
     moon_illuminance_lux,
 };
-use crate::lighting::{BodyLight, LightMode, MoonLighting};
 use crate::planet::Planet;
 use crate::sky::{Place, StarInstant};
 

@@ -1,5 +1,6 @@
 //! The search primitives every event search shares: an even sample grid, bisection of a state
-//! change, and a bounded-rate walk toward a zero.
+//! change, threshold crossings, and a bounded-rate walk toward a zero. A leaf module: the
+//! searches in `events`, `moons` and `sky_events` all build on it.
 //!
 //! A state change between two samples is refined by bisection until the bracket is at most
 //! [`EVENT_TIME_TOLERANCE_S`] wide; the reported instant is the bracket's lower end, the last
@@ -7,6 +8,8 @@
 //! marks, and for an interval `[from, to)` whose ends are sampled, every change in `(from, to]`
 //! is reported once, at an instant in `[from, to)`: consecutive intervals report each change
 //! exactly once.
+
+use serde::{Deserialize, Serialize};
 
 /// Largest error of an event's instant, seconds: bisection stops when the bracket is this
 /// narrow (or cannot be split in `f64`), and reports its lower end.
@@ -141,4 +144,59 @@ mod tests {
         assert!(b <= 49.0 && a >= 49.0, "{a} {b}");
         assert!(walk_to_sign_change(60.0, 100.0, 1.0, 1e-6, &mut g).is_none());
     }
+}
+
+/// One passage through an altitude threshold: the last instant on the old side, within
+/// [`EVENT_TIME_TOLERANCE_S`] of the passage.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct Crossing {
+    /// World time of the crossing, seconds since time zero.
+    pub t_s: f64,
+    /// `true` when the body goes above the threshold (strictly: the "is up" rule), `false`
+    /// when it goes back to it or below.
+    pub rising: bool,
+}
+
+/// Every sign change of `f` (positive or not) between samples at most `max_step` apart over
+/// `[t0_s, t1_s]`, each reported at the last instant before it (so in `[t0_s, t1_s)`); `rising`
+/// when `f` turns positive. Deterministic: the value at an interval's end is the value at the
+/// next interval's start, so consecutive intervals report each crossing exactly once.
+pub(crate) fn crossings_of(
+    f: &dyn Fn(f64) -> f64,
+    t0_s: f64,
+    t1_s: f64,
+    max_step: f64,
+    out: &mut Vec<Crossing>,
+) {
+    // Written to reject NaN as well as empty intervals.
+    if t1_s.partial_cmp(&t0_s) != Some(std::cmp::Ordering::Greater)
+        || max_step.partial_cmp(&0.0) != Some(std::cmp::Ordering::Greater)
+    {
+        return;
+    }
+    let grid = Grid::new(t0_s, t1_s, max_step.max((t1_s - t0_s) / 1.0e7));
+    let mut a = f(t0_s) > 0.0;
+    for (ta, tb) in grid.steps() {
+        let b = f(tb) > 0.0;
+        if a != b {
+            out.push(Crossing {
+                t_s: refine_change(ta, tb, a, &mut |t| f(t) > 0.0),
+                rising: b,
+            });
+        }
+        a = b;
+    }
+}
+
+/// How fast an occluder can move against the star: what the event finder needs to walk
+/// toward an eclipse without stepping over it.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct OccluderMotion {
+    /// Upper bound on the rate of change of [`crate::Planet::occluder_clearance_rad`], rad/s.
+    pub max_rate_rad_s: f64,
+    /// Smallest sum of the two discs' angular radii, radians: the scale of the shortest
+    /// eclipse.
+    pub min_contact_rad: f64,
+    /// Longest an eclipse could last, seconds (the occluder's synodic period, at most a year).
+    pub longest_s: f64,
 }
