@@ -85,8 +85,8 @@ pub fn lunar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<LunarP
         .collect()
 }
 
-/// Lunisolar cycles (years holding a whole number of months), by rising cycle length. Empty
-/// when a year holds fewer than two synodic months.
+/// Lunisolar cycles (years holding a whole number of months, some with one more), by rising
+/// cycle length. Empty when a year holds fewer than two synodic months.
 pub fn lunisolar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<LunisolarProposal> {
     let ratio = tropical_year_days / synodic_days;
     if !(ratio.is_finite() && ratio >= 2.0) {
@@ -95,7 +95,7 @@ pub fn lunisolar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<Lu
     let common = ratio.floor() as u64;
     best_approximations(ratio, MAX_CYCLE_YEARS)
         .into_iter()
-        .filter(|a| a.numerator >= common * a.denominator)
+        .filter(|a| a.numerator > common * a.denominator)
         .map(|a| {
             let mean_year = a.numerator as f64 * synodic_days / a.denominator as f64;
             LunisolarProposal {

@@ -15,6 +15,9 @@ const MAX_DRIFT_DAYS_PER_KY: f64 = 20.0;
 /// A best rule drifts at most this much (one day in 2000 years), days per 1000 years.
 pub const BEST_DRIFT_DAYS_PER_KY: f64 = 0.5;
 
+/// Round-number rules are proposed when they drift at most this much, days per 1000 years.
+const MAX_ROUND_DRIFT_DAYS_PER_KY: f64 = 1.0;
+
 /// Round numbers a people might choose for exception steps (years).
 const ROUND_STEPS: [u32; 16] = [
     10, 20, 25, 40, 50, 100, 200, 250, 400, 500, 1000, 2000, 2500, 4000, 5000, 10000,
@@ -70,7 +73,12 @@ pub struct SolarProposal {
 impl SolarProposal {
     fn new(tropical_year_days: f64, year_days: u32, leap: LeapRule, family: SolarFamily) -> Self {
         let mean_year_days = f64::from(year_days) + leap.mean_leap_fraction();
-        let err = mean_year_days - tropical_year_days;
+        let mut err = mean_year_days - tropical_year_days;
+        // Rules that match the year to rounding are exact (the invented worlds' years are often
+        // whole fractions of their days).
+        if err.abs() < 1.0e-9 * tropical_year_days.max(1.0) {
+            err = 0.0;
+        }
         SolarProposal {
             year_days,
             leap,
@@ -150,7 +158,8 @@ pub fn solar_proposals(tropical_year_days: f64) -> Vec<SolarProposal> {
 
 /// Gregorian-style rules: a leap year every `a` years (the whole number of years in which the
 /// fraction adds up to at most one day), except every `b`th year, but again every `c`th, with
-/// `b` and `c` round numbers. The three closest, when closer than the plain `1 in a`.
+/// `b` and `c` round numbers. The three closest, when closer than the plain `1 in a` and
+/// drifting at most one day in 1000 years (simpler ones first when two give the same mean).
 fn round_exception_rules(tropical_year_days: f64, whole: u32, frac: f64) -> Vec<SolarProposal> {
     if !(frac > 1.0e-9 && frac < 0.5) {
         return Vec::new();
@@ -169,7 +178,11 @@ fn round_exception_rules(tropical_year_days: f64, whole: u32, frac: f64) -> Vec<
                 exceptions,
             };
             let err = (rule.mean_leap_fraction() - frac).abs();
-            if err < base_err {
+            let fraction = rule.mean_leap_fraction();
+            let new = !rules
+                .iter()
+                .any(|(_, r)| (r.mean_leap_fraction() - fraction).abs() < 1e-12);
+            if err < base_err && 1000.0 * err <= MAX_ROUND_DRIFT_DAYS_PER_KY && new {
                 rules.push((err, rule));
             }
         };
