@@ -69,10 +69,12 @@ fn print_notices(mut notices: MessageReader<SkyNotice>, world: Res<ActiveWorld>)
         for (i, moon) in planet.spec().moons.iter().enumerate() {
             what = what.replace(&format!("moon {i}"), &moon.name);
         }
+        // Printed days of the year count from 1, as `insola --date` reads them; the field
+        // `day_of_year` counts from 0.
         println!(
             "year {} day {:>3} {}  {what}",
             date.year,
-            date.day_of_year,
+            date.day_of_year + 1,
             date_clock(date.hour_of_day)
         );
     }

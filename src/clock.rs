@@ -132,6 +132,9 @@ pub enum ClockError {
         /// The allowed range in words.
         allowed: String,
     },
+    /// A calendar reading the world's calendar does not have (a day past the year's end…).
+    #[error(transparent)]
+    Calendar(insola::calendar::CalendarError),
 }
 
 /// The world clock: the current world instant, how fast it runs, and whether it is paused.
@@ -334,21 +337,37 @@ impl WorldClock {
                 allowed: format!("0 up to the day length ({day_h} h)"),
             });
         }
-        let days = days_in_year(planet, year);
-        if day_of_year >= days {
-            return Err(ClockError::OutOfRange {
-                what: "day_of_year",
-                value: day_of_year as f64,
-                allowed: format!("0 to {} (year {year} has {days} calendar days)", days - 1),
-            });
-        }
-        let t = planet.time_of_date(year, day_of_year, hour_of_day);
-        if !t.is_finite() {
-            return Err(ClockError::NotFinite {
-                what: "time_of_date",
-                value: t,
-            });
-        }
+        let t = planet
+            .time_of_date(year, day_of_year, hour_of_day)
+            .map_err(ClockError::Calendar)?;
+        self.jump_to(WorldInstant::from_secs_f64(t));
+        Ok(())
+    }
+
+    /// Moves the clock to a month date: `year`, `month` (index into the calendar's months, from
+    /// 0), `day_of_month` (from 1) and `hour_of_day` (as for [`WorldClock::jump_to_date`]).
+    pub fn jump_to_month_date(
+        &mut self,
+        planet: &Planet,
+        year: i64,
+        month: usize,
+        day_of_month: u64,
+        hour_of_day: f64,
+    ) -> Result<(), ClockError> {
+        let t = planet
+            .time_of_month_date(year, month, day_of_month, hour_of_day)
+            .map_err(ClockError::Calendar)?;
+        self.jump_to(WorldInstant::from_secs_f64(t));
+        Ok(())
+    }
+
+    /// Moves the clock to a date written in the calendar's text form: `YEAR-DAY` (day of year
+    /// from 1) or `YEAR/MONTH/DAY` (month by name or number), optionally followed by
+    /// `THH:MM[:SS]` — the same syntax as the `insola` command's `--date`.
+    pub fn jump_to_date_text(&mut self, planet: &Planet, text: &str) -> Result<(), ClockError> {
+        let t = planet
+            .time_of_date_text(text)
+            .map_err(ClockError::Calendar)?;
         self.jump_to(WorldInstant::from_secs_f64(t));
         Ok(())
     }
@@ -392,15 +411,6 @@ impl WorldClock {
             self.now.add_secs(step);
         }
     }
-}
-
-/// Number of calendar days (day numbers `0..n`) that year `year` holds: the days whose local
-/// midnight at the prime meridian, or the year's start, falls inside the year.
-fn days_in_year(planet: &Planet, year: i64) -> u64 {
-    let year_start = (year - planet.calendar().first_year) as f64 * planet.year_s();
-    // The last instant of the year, a millionth of a second before the next one starts.
-    let last = year_start + planet.year_s() - (planet.year_s() * 1e-12).max(1e-6);
-    planet.date_at(last).day_of_year + 1
 }
 
 /// Advances the [`WorldClock`] by the real frame time.

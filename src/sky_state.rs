@@ -91,16 +91,25 @@ pub struct SkyMoon {
 pub struct SkyDate {
     /// Year number on the world's calendar.
     pub year: i64,
-    /// Solar day within the year, from 0.
+    /// Calendar day within the year, from 0 (shown to people from 1, as `insola --date`
+    /// reads it).
     pub day_of_year: u64,
+    /// Month index into the calendar's months (from 0), if it has months.
+    pub month: Option<usize>,
     /// Month name, if the world's calendar has months.
     pub month_name: Option<String>,
     /// Day within the month (or year, without months), from 1.
     pub day_of_month: u64,
     /// Hours since local mean midnight at the prime meridian.
     pub hour_of_day: f64,
-    /// Fraction of the year elapsed, `[0, 1)`.
+    /// Fraction of the calendar year elapsed, `[0, 1)`.
     pub year_fraction: f64,
+    /// Day of the week (from 0), if the calendar has weeks.
+    pub weekday: Option<u32>,
+    /// Name of the weekday, if the calendar names them.
+    pub weekday_name: Option<String>,
+    /// `true` in a leap year (one more day than a common year).
+    pub leap_year: bool,
 }
 
 impl SkyDate {
@@ -207,10 +216,14 @@ impl SkyState {
             date: SkyDate {
                 year: date.year,
                 day_of_year: date.day_of_year,
+                month: date.month,
                 month_name: date.month_name,
                 day_of_month: date.day_of_month,
                 hour_of_day: date.hour_of_day,
                 year_fraction: date.year_fraction,
+                weekday: date.weekday,
+                weekday_name: date.weekday_name,
+                leap_year: date.leap_year,
             },
             season: SeasonOfYear::at(ecliptic_longitude, place.latitude_rad),
             local_day: local_day(planet, t_s, place),

@@ -44,6 +44,8 @@ enum Command {
     Climate(commands::climate::Args),
     /// Latitude × time-of-year heat map (PNG and/or CSV) of sunlight, daylight or temperature.
     Map(commands::map::Args),
+    /// Leap rules, lunar and lunisolar schemes that fit the world; write one to the file.
+    Calendar(commands::calendar::Args),
 }
 
 /// Writes one line to standard output; exits with status 0 on a closed pipe and 2 on any other
@@ -70,6 +72,7 @@ fn main() -> ExitCode {
         Command::Worlds(a) => commands::list::run(a),
         Command::Climate(a) => commands::climate::run(a),
         Command::Map(a) => commands::map::run(a),
+        Command::Calendar(a) => commands::calendar::run(a),
     };
     match result {
         Ok(()) => ExitCode::SUCCESS,

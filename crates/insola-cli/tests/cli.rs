@@ -528,3 +528,85 @@ fn events_reject_bad_input_cleanly() {
     fails_cleanly(&["events", "verdance", "--lat", "0", "--to-utc", "2000-01-01"]);
     fails_cleanly(&["events", "verdance", "--lat", "0", "--to", "1e15"]);
 }
+
+#[test]
+fn calendar_proposes_and_writes_a_rule() {
+    let v = json(&["calendar", "earth-reference", "--json"]);
+    let solar = v["design"]["solar"].as_array().unwrap();
+    let has_rule = |l: u64, c: u64, ex: &[u64]| {
+        solar.iter().any(|p| {
+            p["leap"]["leap_years"] == l
+                && p["leap"]["cycle_years"] == c
+                && p["leap"]["exceptions"].as_array().unwrap().len() == ex.len()
+        })
+    };
+    // Gregorian 97 in 400 and the 8-in-33 cycle (see the core's designer tests for sources).
+    assert!(has_rule(1, 4, &[100, 400]) && has_rule(8, 33, &[]), "{v}");
+    assert_eq!(v["seasons"].as_array().unwrap().len(), 4);
+    let text = String::from_utf8(insola(&["calendar", "earth-reference"]).stdout).unwrap();
+    assert!(text.contains("not for navigation"), "{text}");
+
+    let path = tmp("calendar-write.world.ron");
+    let original = include_str!("../../../assets/worlds/tessaly-reach.world.ron");
+    let bare = original
+        .split("    // Calendar chosen")
+        .next()
+        .unwrap()
+        .to_string()
+        + ")\n";
+    std::fs::write(&path, &bare).unwrap();
+    let p = path.to_str().unwrap();
+    let out = insola(&["calendar", p, "--write", "1"]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let written = std::fs::read_to_string(&path).unwrap();
+    assert!(
+        written.starts_with(bare.trim_end_matches(")\n")),
+        "{written}"
+    );
+    assert!(
+        written.contains("leap: (leap_years: 3, cycle_years: 7)"),
+        "{written}"
+    );
+    // Writing again replaces the section instead of adding a second one.
+    assert!(insola(&["calendar", p, "--write"]).status.success());
+    let again = std::fs::read_to_string(&path).unwrap();
+    assert_eq!(again.matches("calendar: (").count(), 1, "{again}");
+    fails_cleanly(&["calendar", p, "--write", "99"]);
+    fails_cleanly(&["calendar", "verdance", "--write"]);
+}
+
+#[test]
+fn times_can_be_calendar_dates() {
+    let v = json(&[
+        "sky",
+        "verdance",
+        "--lat",
+        "10",
+        "--date",
+        "3/Highsun/12T06:00",
+        "--json",
+    ]);
+    assert_eq!(v["date"]["year"], 3);
+    assert_eq!(v["date"]["month_name"], "Highsun");
+    assert_eq!(v["date"]["day_of_month"], 12);
+    assert_eq!(v["date"]["weekday_name"], "Hearthday");
+    let by_day_of_year = json(&[
+        "sky",
+        "verdance",
+        "--lat",
+        "10",
+        "--date",
+        "3-164T06:00",
+        "--json",
+    ]);
+    assert_eq!(v["t_s"], by_day_of_year["t_s"]);
+    let d = json(&["day", "verdance", "--lat", "10", "--date", "2-5", "--json"]);
+    assert_eq!(d["date"], "2/Thawing/5");
+    let err = fails_cleanly(&["sky", "verdance", "--lat", "10", "--date", "1/Highsun/39"]);
+    assert!(err.contains("38 days"), "{err}");
+    fails_cleanly(&["sky", "verdance", "--lat", "10", "--date", "soon"]);
+}

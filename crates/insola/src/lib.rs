@@ -3,6 +3,7 @@
 pub mod angle;
 pub mod batch;
 pub mod calendar;
+pub mod calendar_design;
 pub mod climate;
 pub mod constants;
 pub mod error;

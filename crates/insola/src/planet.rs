@@ -3,6 +3,7 @@
 use std::f64::consts::{PI, TAU};
 
 use crate::angle::wrap_tau;
+use crate::calendar::Calendar;
 use crate::constants::{
     AU_M, HORIZON_REFRACTION_EARTH_RAD, SECONDS_PER_DAY, SECONDS_PER_HOUR, SUN_LUMINOSITY_W,
     SUN_RADIUS_M, flux_at_distance_w_m2,
@@ -47,6 +48,7 @@ pub struct Planet {
     body: BodySpec,
     moon_orbits: Vec<MoonOrbit>,
     light_model: StarLightModel,
+    calendar: Calendar,
 }
 
 impl Planet {
@@ -137,7 +139,12 @@ impl Planet {
                 ),
                 _ => e,
             })?;
+        // Calendar days are the local days the clock counts: mean solar days, or sidereal days
+        // on a tidally locked world.
+        let tropical_year_days = crate::calendar_design::tropical_year_s_of(&orbit) / day_s;
+        let calendar = Calendar::new(spec.calendar.as_ref(), tropical_year_days);
         Ok(Planet {
+            calendar,
             spec: spec.clone(),
             orbit,
             spin,
@@ -219,6 +226,11 @@ impl Planet {
     /// The spectral light model of this star and atmosphere (built with the planet).
     pub fn light_model(&self) -> &StarLightModel {
         &self.light_model
+    }
+
+    /// The calendar with its defaults filled in (see [`Planet::calendar`]).
+    pub(crate) fn calendar_ref(&self) -> &Calendar {
+        &self.calendar
     }
 
     /// The year (orbital period) in seconds.

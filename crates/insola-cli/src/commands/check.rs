@@ -58,8 +58,31 @@ pub struct Facts {
     pub star_angular_diameter_deg: f64,
     /// Altitude of the star's centre at standard rise and set, degrees.
     pub standard_rise_altitude_deg: f64,
+    /// The world's calendar.
+    pub calendar: CalendarFacts,
+    /// Equinoxes and solstices of the year of time zero on the calendar.
+    pub season_dates: Vec<insola::calendar_design::SeasonDate>,
+    /// How far each wanders over the leap rule's period.
+    pub season_wander: Vec<insola::calendar_design::SeasonWander>,
     /// Things a designer may want to know.
     pub warnings: Vec<String>,
+}
+
+/// The calendar in a few numbers.
+#[derive(Debug, Serialize)]
+pub struct CalendarFacts {
+    /// Days of a common year (local solar days).
+    pub year_days: u32,
+    /// The leap rule in words.
+    pub leap_rule: String,
+    /// `true` if the world file names the rule, `false` for the designer's default.
+    pub rule_from_file: bool,
+    /// Mean calendar year, local days.
+    pub mean_year_days: f64,
+    /// Tropical year, local days.
+    pub tropical_year_days: f64,
+    /// Days the calendar gains on the seasons per 1000 years.
+    pub drift_days_per_1000_years: f64,
 }
 
 /// Computes the facts of a planet.
@@ -105,6 +128,25 @@ pub fn facts(p: &Planet) -> Facts {
     if let Some(w) = &albedo.warning {
         warnings.push(w.clone());
     }
+    let cal = p.calendar();
+    let tropical = p.tropical_year_days();
+    let mut drift = 1000.0 * (cal.mean_year_days() - tropical);
+    if drift.abs() < 1e-6 * tropical {
+        drift = 0.0;
+    }
+    if drift.abs() > 10.0 {
+        warnings.push(format!(
+            "calendar: the mean calendar year drifts {drift:+.1} days per 1000 years against the seasons; `insola calendar` proposes closer leap rules"
+        ));
+    }
+    if let Some(sum) = cal.months_mismatch() {
+        warnings.push(format!(
+            "calendar: the months add up to {sum} days but a common year has {}; the last month {} the difference",
+            cal.common_year_days,
+            if sum < cal.common_year_days { "takes" } else { "loses" }
+        ));
+    }
+    let first_year = p.date_at(0.0).year;
     let days = |x: f64| x / SECONDS_PER_DAY;
     let local = |x: f64| x / p.spin().solar_day_s;
     Facts {
@@ -142,6 +184,16 @@ pub fn facts(p: &Planet) -> Facts {
                 .asin()
                 .to_degrees(),
         standard_rise_altitude_deg: p.standard_rise_altitude_rad().to_degrees(),
+        calendar: CalendarFacts {
+            year_days: cal.common_year_days,
+            leap_rule: cal.leap.describe(),
+            rule_from_file: cal.rule_from_file,
+            mean_year_days: cal.mean_year_days(),
+            tropical_year_days: tropical,
+            drift_days_per_1000_years: drift,
+        },
+        season_dates: p.season_dates(first_year),
+        season_wander: p.season_wander(),
         warnings,
     }
 }
@@ -215,6 +267,7 @@ pub fn run(args: Args) -> Result<(), String> {
     if p.spec().reference {
         say!("  (validation reference world, not game content)");
     }
+    super::output::caution(&p);
     match f.solar_day_h {
         Some(h) => say!("  solar day        {h:.4} h"),
         None => say!("  solar day        none (tidally locked)"),
@@ -262,6 +315,26 @@ pub fn run(args: Args) -> Result<(), String> {
         f.star_angular_diameter_deg,
         f.standard_rise_altitude_deg
     );
+    let c = &f.calendar;
+    say!(
+        "  calendar         {} days, {} ({}); mean year {:.5} against the tropical year {:.5} local days, drift {:+.3} days per 1000 years",
+        c.year_days,
+        c.leap_rule,
+        if c.rule_from_file {
+            "world file"
+        } else {
+            "designer's default"
+        },
+        c.mean_year_days,
+        c.tropical_year_days,
+        c.drift_days_per_1000_years
+    );
+    if let Some(first) = f.season_dates.first() {
+        say!("  seasons of year {}:", first.date.year);
+    }
+    for line in super::calendar::season_lines(&f.season_dates, &f.season_wander) {
+        say!("  {line}");
+    }
     for w in &f.warnings {
         say!("  warning: {w}");
     }

@@ -1,4 +1,5 @@
-//! `insola day WORLD --lat DEG [--lon DEG] (--day N | --utc YYYY-MM-DD)`: events of a local day.
+//! `insola day WORLD --lat DEG [--lon DEG] (--day N | --date DATE | --utc YYYY-MM-DD)`: events of
+//! a local day.
 
 use insola::Planet;
 use insola::events::{Crossings, DayEvents, Polar};
@@ -13,11 +14,17 @@ pub struct Args {
     /// Local day number (day 0 contains time zero).
     #[arg(
         long,
-        conflicts_with = "utc",
-        required_unless_present = "utc",
+        conflicts_with_all = ["utc", "date"],
+        required_unless_present_any = ["utc", "date"],
         allow_hyphen_values = true
     )]
     day: Option<i64>,
+    /// A date on the world's calendar: YEAR-DAY (day of the year from 1) or YEAR/MONTH/DAY
+    /// (month name or number from 1); a time (THH:MM) may follow and picks the observer's local
+    /// day holding that instant, otherwise the local day holding the calendar day's noon at the
+    /// prime meridian. Examples: 3-117, 3/Frostwane/12.
+    #[arg(long, conflicts_with = "utc", allow_hyphen_values = true)]
+    date: Option<String>,
     /// A UTC date (YYYY-MM-DD), for worlds tied to UTC: the local mean solar day of that date.
     #[arg(long)]
     utc: Option<String>,
@@ -31,6 +38,11 @@ pub struct Args {
 pub struct DayReport {
     /// Local day number.
     pub day: i64,
+    /// The calendar date (at the prime meridian) at this local day's noon, as text
+    /// (YEAR/MONTH/DAY or YEAR-DAY).
+    pub date: String,
+    /// Weekday name or number from 1, if the calendar has weeks.
+    pub weekday: Option<String>,
     /// Length of the local (mean solar) day, hours.
     pub day_length_h: f64,
     /// Rise of the star's upper limb (standard altitude), local hours; null if none.
@@ -60,7 +72,8 @@ pub struct DayReport {
 }
 
 /// Builds the report from the core's events.
-pub fn report(day: i64, ev: &DayEvents) -> DayReport {
+pub fn report(p: &Planet, day: i64, ev: &DayEvents) -> DayReport {
+    let date = p.date_at(ev.day_start_s + 0.5 * ev.day_length_s);
     let h = |t: Option<f64>| t.map(|t| ev.local_hours(t));
     let pair = |c: &Crossings| (h(c.rise_s), h(c.set_s));
     let (civil_dawn_h, civil_dusk_h) = pair(&ev.civil);
@@ -68,6 +81,11 @@ pub fn report(day: i64, ev: &DayEvents) -> DayReport {
     let (astronomical_dawn_h, astronomical_dusk_h) = pair(&ev.astronomical);
     DayReport {
         day,
+        weekday: date
+            .weekday_name
+            .clone()
+            .or_else(|| date.weekday.map(|w| (w + 1).to_string())),
+        date: date.text(),
         day_length_h: ev.day_length_s / 3600.0,
         sunrise_h: h(ev.sunlight.rise_s),
         sunset_h: h(ev.sunlight.set_s),
@@ -88,9 +106,17 @@ pub fn report(day: i64, ev: &DayEvents) -> DayReport {
 pub fn resolve_day(
     p: &Planet,
     day: Option<i64>,
+    date: Option<&str>,
     utc: Option<&str>,
     lon_deg: f64,
 ) -> Result<i64, String> {
+    if let Some(text) = date {
+        let mut t = super::sky::resolve_date(p, text)?;
+        if !text.contains(['T', 't', ' ']) || !text.contains(':') {
+            t += 0.5 * p.day_s();
+        }
+        return Ok(p.local_day_count(t, lon_deg.to_radians()).floor() as i64);
+    }
     match (day, utc) {
         (Some(d), _) => Ok(d),
         (None, Some(text)) => {
@@ -106,7 +132,7 @@ pub fn resolve_day(
             })?;
             Ok(p.local_day_count(t, lon_deg.to_radians()).floor() as i64)
         }
-        (None, None) => Err("give --day or --utc".into()),
+        (None, None) => Err("give --day, --date or --utc".into()),
     }
 }
 
@@ -114,8 +140,14 @@ pub fn resolve_day(
 pub fn run(args: Args) -> Result<(), String> {
     let (p, place) = args.at.load()?;
     let lat = args.at.lat;
-    let day = resolve_day(&p, args.day, args.utc.as_deref(), args.at.lon)?;
-    let r = report(day, &p.day_events(day, place));
+    let day = resolve_day(
+        &p,
+        args.day,
+        args.date.as_deref(),
+        args.utc.as_deref(),
+        args.at.lon,
+    )?;
+    let r = report(&p, day, &p.day_events(day, place));
     if args.json {
         return super::output::print_json(&r);
     }
@@ -127,6 +159,14 @@ pub fn run(args: Args) -> Result<(), String> {
         args.at.lon,
         day,
         r.day_length_h
+    );
+    super::output::caution(&p);
+    say!(
+        "  date {}{}",
+        r.date,
+        r.weekday
+            .as_ref()
+            .map_or(String::new(), |w| format!(", weekday {w}"))
     );
     match r.polar {
         Some(Polar::Day) => say!("  the star never sets (polar day)"),

@@ -20,19 +20,27 @@ pub struct Args {
     #[arg(long, conflicts_with = "from_utc", allow_hyphen_values = true)]
     from: Option<f64>,
     /// Start as a UTC instant or date (RFC 3339 or YYYY-MM-DD), for worlds tied to UTC.
-    #[arg(long)]
+    #[arg(long, conflicts_with = "from_date")]
     from_utc: Option<String>,
+    /// Start as a date of the world's calendar: `YEAR-DAY` (day of year from 1) or
+    /// `YEAR/MONTH/DAY`, optionally with `THH:MM`.
+    #[arg(long, conflicts_with = "from", allow_hyphen_values = true)]
+    from_date: Option<String>,
     /// End (not included): solar days since time zero.
     #[arg(
         long,
         conflicts_with = "to_utc",
-        required_unless_present = "to_utc",
+        conflicts_with = "to_date",
+        required_unless_present_any = ["to_utc", "to_date"],
         allow_hyphen_values = true
     )]
     to: Option<f64>,
     /// End (not included) as a UTC instant or date, for worlds tied to UTC.
-    #[arg(long)]
+    #[arg(long, conflicts_with = "to_date")]
     to_utc: Option<String>,
+    /// End (not included) as a date of the world's calendar (syntax as for `--from-date`).
+    #[arg(long, allow_hyphen_values = true)]
+    to_date: Option<String>,
     /// Which events, comma-separated: rise-set, transit, twilight, day, year, season,
     /// moon-phase, star-eclipse, moon-eclipse; `eclipse` for both eclipse kinds; `all`
     /// (default: all but day).
@@ -210,13 +218,25 @@ fn csv_field(text: &str) -> String {
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let (p, place) = args.at.load()?;
-    let from_s = match (args.from, args.from_utc.as_deref()) {
-        (None, None) => 0.0,
-        (day, utc) => super::sky::resolve_time(&p, day, utc)
-            .map_err(|e| e.replace("--day", "--from").replace("--utc", "--from-utc"))?,
+    let from_s = match (
+        args.from,
+        args.from_date.as_deref(),
+        args.from_utc.as_deref(),
+    ) {
+        (None, None, None) => 0.0,
+        (day, date, utc) => super::sky::resolve_time(&p, day, date, utc).map_err(|e| {
+            e.replace("--day", "--from")
+                .replace("--date", "--from-date")
+                .replace("--utc", "--from-utc")
+        })?,
     };
-    let to_s = super::sky::resolve_time(&p, args.to, args.to_utc.as_deref())
-        .map_err(|e| e.replace("--day", "--to").replace("--utc", "--to-utc"))?;
+    let to_s =
+        super::sky::resolve_time(&p, args.to, args.to_date.as_deref(), args.to_utc.as_deref())
+            .map_err(|e| {
+                e.replace("--day", "--to")
+                    .replace("--date", "--to-date")
+                    .replace("--utc", "--to-utc")
+            })?;
     let filter = parse_kinds(&args.kinds)?;
     let r = report(&p, place, from_s, to_s, &filter)?;
     if args.json {

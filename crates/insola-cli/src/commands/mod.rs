@@ -1,5 +1,7 @@
 //! One module per subcommand.
 
+pub mod calendar;
+pub mod calendar_file;
 pub mod check;
 pub mod climate;
 pub mod colour_map;

@@ -56,3 +56,13 @@ impl WorldPlace {
         Ok((planet, place))
     }
 }
+
+/// The one-line caution printed with the text output of a reference world.
+pub const REFERENCE_CAUTION: &str = "caution: a validation reference world. Insola's numbers are for games and invented worlds, not for navigation, solar engineering or sun-exposure decisions; real sites need official almanacs and local professional practice.";
+
+/// Prints [`REFERENCE_CAUTION`] when `p` is a reference world.
+pub fn caution(p: &insola::Planet) {
+    if p.spec().reference {
+        say!("  {REFERENCE_CAUTION}");
+    }
+}

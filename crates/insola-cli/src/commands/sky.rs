@@ -1,5 +1,6 @@
-//! `insola sky WORLD --lat DEG [--lon DEG] (--day DAYS | --utc ISO8601)`.
+//! `insola sky WORLD --lat DEG [--lon DEG] (--day DAYS | --date DATE | --utc ISO8601)`.
 
+use insola::calendar::CalendarDate;
 use insola::lighting::LightMode;
 use insola::{Place, Planet};
 use serde::Serialize;
@@ -13,11 +14,17 @@ pub struct Args {
     /// Solar days since the world's time zero (fractional).
     #[arg(
         long,
-        conflicts_with = "utc",
-        required_unless_present = "utc",
+        conflicts_with_all = ["utc", "date"],
+        required_unless_present_any = ["utc", "date"],
         allow_hyphen_values = true
     )]
     day: Option<f64>,
+    /// A date and time on the world's calendar: YEAR-DAY (day of the year from 1) or
+    /// YEAR/MONTH/DAY (month name or number from 1), optionally followed by THH:MM[:SS] in
+    /// local mean time at the prime meridian (midnight if left out). Examples: 3-117T13:30,
+    /// 3/Frostwane/12T06:00, -40-1.
+    #[arg(long, conflicts_with = "utc", allow_hyphen_values = true)]
+    date: Option<String>,
     /// A UTC instant (RFC 3339), for worlds tied to UTC.
     #[arg(long)]
     utc: Option<String>,
@@ -34,6 +41,8 @@ pub struct Args {
 pub struct SkyReport {
     /// Fractional solar days since time zero.
     pub day: f64,
+    /// The instant on the world's calendar (at the prime meridian).
+    pub date: CalendarDate,
     /// World time in seconds since time zero.
     pub t_s: f64,
     /// Geometric altitude of the star's centre, without refraction, degrees.
@@ -95,8 +104,22 @@ pub struct MoonReport {
     pub eclipse_fraction: f64,
 }
 
-/// Resolves `--day` / `--utc` to world seconds.
-pub fn resolve_time(p: &Planet, day: Option<f64>, utc: Option<&str>) -> Result<f64, String> {
+/// Resolves `--date` (a calendar date and time) to world seconds.
+pub fn resolve_date(p: &Planet, text: &str) -> Result<f64, String> {
+    p.time_of_date_text(text)
+        .map_err(|e| format!("--date {text}: {e}"))
+}
+
+/// Resolves `--day` / `--date` / `--utc` to world seconds.
+pub fn resolve_time(
+    p: &Planet,
+    day: Option<f64>,
+    date: Option<&str>,
+    utc: Option<&str>,
+) -> Result<f64, String> {
+    if let Some(text) = date {
+        return resolve_date(p, text);
+    }
     match (day, utc) {
         (Some(d), _) if d.is_finite() => Ok(p.time_of_solar_days(d)),
         (Some(d), _) => Err(format!("--day {d} is not a finite number")),
@@ -110,7 +133,7 @@ pub fn resolve_time(p: &Planet, day: Option<f64>, utc: Option<&str>) -> Result<f
                 )
             })
         }
-        (None, None) => Err("give --day or --utc".into()),
+        (None, None) => Err("give --day, --date or --utc".into()),
     }
 }
 
@@ -122,6 +145,7 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
     let d = s.direction_enu;
     SkyReport {
         day: p.solar_days_since_zero(t),
+        date: p.date_at(t),
         t_s: t,
         altitude_deg: s.altitude_rad.to_degrees(),
         azimuth_deg: s.azimuth_rad.to_degrees(),
@@ -161,7 +185,7 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
 pub fn run(args: Args) -> Result<(), String> {
     let (p, place) = args.at.load()?;
     let lat = args.at.lat;
-    let t = resolve_time(&p, args.day, args.utc.as_deref())?;
+    let t = resolve_time(&p, args.day, args.date.as_deref(), args.utc.as_deref())?;
     let mode = if args.top_of_atmosphere {
         LightMode::TopOfAtmosphere
     } else {
@@ -179,6 +203,8 @@ pub fn run(args: Args) -> Result<(), String> {
         r.day,
         r.local_mean_time_h
     );
+    super::output::caution(&p);
+    say!("  date      {} at the prime meridian", r.date.label());
     say!(
         "  star      altitude {:8.3}°  azimuth {:8.3}°  hour angle {:8.3}°",
         r.altitude_deg,

@@ -6,23 +6,25 @@ use crate::seasons::SeasonMark;
 use crate::sky::Place;
 
 impl Planet {
-    /// New calendar years in `[from_s, to_s)`: year `k` from time zero starts at `k` orbital
-    /// periods, as [`Planet::date_at`] counts them.
+    /// New calendar years in `[from_s, to_s)`: each year starts at the local mean midnight at
+    /// the prime meridian that the world's calendar (its leap rule) gives it, as
+    /// [`Planet::date_at`] counts them.
     pub(super) fn new_years_into(&self, from_s: f64, to_s: f64, out: &mut Vec<SkyEvent>) {
-        let year_s = self.year_s();
-        let first_year = self.calendar().first_year;
-        // `+ 0.0` turns the −0 that `ceil` gives just below zero into 0.
-        let mut k = (from_s / year_s).ceil() + 0.0;
-        while k * year_s < to_s {
-            if k * year_s >= from_s {
+        // The year holding `from_s` may itself start at `from_s`.
+        let mut year = self.date_at(from_s).year;
+        loop {
+            let at_s = self.year_start_s(year);
+            // Written to stop on NaN as well.
+            if at_s.partial_cmp(&to_s) != Some(std::cmp::Ordering::Less) {
+                break;
+            }
+            if at_s >= from_s {
                 out.push(SkyEvent {
-                    at_s: k * year_s,
-                    kind: SkyEventKind::NewYear {
-                        year: first_year.saturating_add(k as i64),
-                    },
+                    at_s,
+                    kind: SkyEventKind::NewYear { year },
                 });
             }
-            k += 1.0;
+            year = year.saturating_add(1);
         }
     }
 
