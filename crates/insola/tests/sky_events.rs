@@ -161,7 +161,8 @@ proptest! {
 
     /// The lighting state's twilight phase is the old phase at each boundary event and the
     /// new one a tolerance later; rise and set of the star are where the phase leaves and
-    /// enters day; every event lies in the interval, in order.
+    /// enters day; the moon's light turns on and off at its rise and set; every event lies in
+    /// the interval, in order.
     #[test]
     fn twilight_phase_changes_exactly_at_the_events(
         obliquity in 0.0f64..=180.0,
@@ -193,6 +194,19 @@ proptest! {
             if let Some((before, then)) = expect {
                 prop_assert_eq!(phase(ev.at_s), before, "{}", ev);
                 prop_assert_eq!(phase(ev.at_s + after), then, "{}", ev);
+            }
+            // The moon's light (`is_up`, which the plugin's moon lights follow) switches at
+            // its rise and set events: off at the event, on a tolerance later (and the
+            // reverse at set), so a notice and the light agree to far better than a second.
+            let moon_up = |t: f64| p.lighting(t, place, LightMode::Ground).moons[0].light.is_up;
+            match ev.kind {
+                SkyEventKind::Rise(SkyBody::Moon(0)) => {
+                    prop_assert!(!moon_up(ev.at_s) && moon_up(ev.at_s + after), "{}", ev);
+                }
+                SkyEventKind::Set(SkyBody::Moon(0)) => {
+                    prop_assert!(moon_up(ev.at_s) && !moon_up(ev.at_s + after), "{}", ev);
+                }
+                _ => {}
             }
         }
     }
