@@ -25,7 +25,7 @@
 //!
 //! A cycle shown exactly lasts at least the limit, so it flashes at most once a second however
 //! the frames fall; a held cycle does not flash at all. Only what is displayed changes: the
-//! clock, [`SkyState`](crate::SkyState), notices, observers and climate stay exact. When the
+//! clock, [`SkyState`], notices, observers and climate stay exact. When the
 //! day lasts longer than the limit the displayed sky is the exact one, to the last bit.
 
 use bevy::color::LinearRgba;
