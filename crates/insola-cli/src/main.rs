@@ -19,7 +19,7 @@ use clap::{Parser, Subcommand};
 
 /// Sky, seasons and climate of any planet, from a world file.
 #[derive(Debug, Parser)]
-#[command(name = "insola", version, about, long_about = None)]
+#[command(name = "insola", version, about, long_about = None, after_help = commands::output::CAUTION)]
 struct Cli {
     #[command(subcommand)]
     command: Command,

@@ -610,3 +610,15 @@ fn times_can_be_calendar_dates() {
     assert!(err.contains("38 days"), "{err}");
     fails_cleanly(&["sky", "verdance", "--lat", "10", "--date", "soon"]);
 }
+
+#[test]
+fn help_and_reference_world_output_carry_the_caution() {
+    let out = insola(&["--help"]);
+    assert!(out.status.success());
+    let help = String::from_utf8_lossy(&out.stdout);
+    assert!(help.contains("not for navigation"), "{help}");
+    let out = insola(&["sky", "earth-reference", "--lat", "51.5", "--day", "10.5"]);
+    assert!(out.status.success());
+    let text = String::from_utf8_lossy(&out.stdout);
+    assert!(text.contains("not for navigation"), "{text}");
+}

@@ -58,11 +58,11 @@ impl WorldPlace {
 }
 
 /// The one-line caution printed with the text output of a reference world.
-pub const REFERENCE_CAUTION: &str = "caution: a validation reference world. Insola's numbers are for games and invented worlds, not for navigation, solar engineering or sun-exposure decisions; real sites need official almanacs and local professional practice.";
+pub const REFERENCE_CAUTION: &str = "caution: a validation reference world.";
 
 /// Prints [`REFERENCE_CAUTION`] when `p` is a reference world.
 pub fn caution(p: &insola::Planet) {
     if p.spec().reference {
-        say!("  {REFERENCE_CAUTION}");
+        say!("  {REFERENCE_CAUTION} {CAUTION}");
     }
 }

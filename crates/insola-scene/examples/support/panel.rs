@@ -404,6 +404,11 @@ fn plots(
     Plot::new("insolation_map")
         .height(height + 30.0)
         .allow_scroll(false)
+        // Latitude runs from pole to pole: the axis shows −90…90 (not the tiles' half-tile
+        // margin rounded up to ±100), with marks every 30°.
+        .default_x_bounds(0.0, 1.0)
+        .default_y_bounds(-90.0, 90.0)
+        .y_grid_spacer(egui_plot::uniform_grid_spacer(|_| [90.0, 30.0, 10.0]))
         .show(ui, |plot| {
             // Tiles are 1/48 of the year wide and 5° of latitude high, the first row at 90° S.
             let tile_w = 1.0 / MAP_COLUMNS as f32;
