@@ -24,12 +24,19 @@ const INTERVALS: usize = COLUMNS - 1;
 
 /// Where a place reads a [`PlaceTable`]: the cell's lower corner and the weights toward the
 /// next row (north) and column (east), fixed for the place (12 bytes).
-#[derive(Debug, Clone, Copy, PartialEq, Default)]
+#[derive(Debug, Clone, Copy, PartialEq)]
 pub struct PlaceCell {
     row: u16,
     column: u16,
     row_weight: f32,
     column_weight: f32,
+}
+
+impl Default for PlaceCell {
+    /// The cell of latitude 0, longitude 0.
+    fn default() -> Self {
+        PlaceCell::new(Place::normalised(0.0, 0.0))
+    }
 }
 
 impl PlaceCell {
