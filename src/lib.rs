@@ -80,7 +80,6 @@ pub mod flash_guard;
 mod lights;
 mod map;
 mod messages;
-mod observer_table;
 mod observers;
 pub mod parts;
 mod season;

@@ -46,8 +46,8 @@ impl Default for MapProjection {
 }
 
 impl MapProjection {
-    /// The place at scene position `position` (latitude clamped to ±90°, longitude wrapped to
-    /// ±180°).
+    /// The place at scene position `position`, normalised by the core's rule
+    /// ([`Place::normalised`]: latitude clamped to ±90°, longitude wrapped to ±180°).
     pub fn place_at(&self, position: Vec3, compass: &crate::SceneCompass) -> Place {
         let m = if self.metres_per_degree.is_finite() && self.metres_per_degree > 0.0 {
             self.metres_per_degree
@@ -56,14 +56,11 @@ impl MapProjection {
         };
         let north_m = position.dot(compass.north()) as f64;
         let east_m = position.dot(compass.east()) as f64;
-        let lat = (self.origin_latitude_deg + north_m / m).clamp(-90.0, 90.0);
         let cos0 = self.origin_latitude_deg.to_radians().cos().max(1e-3);
-        let lon =
-            (self.origin_longitude_deg + east_m / (m * cos0) + 180.0).rem_euclid(360.0) - 180.0;
-        Place {
-            latitude_rad: lat.to_radians(),
-            longitude_rad: lon.to_radians(),
-        }
+        Place::normalised(
+            self.origin_latitude_deg + north_m / m,
+            self.origin_longitude_deg + east_m / (m * cos0),
+        )
     }
 }
 

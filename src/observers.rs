@@ -4,16 +4,18 @@
 //! Give an entity a [`SurfacePlace`] (latitude and longitude) and it gets [`LocalConditions`],
 //! updated in [`InsolaSystems::UpdateObservers`](crate::InsolaSystems) at the cadence of
 //! [`InsolaSettings::observer_interval`]; [`ObserverInstant`] says which world time they
-//! describe. The star's state is computed once per update ([`StarFrame`]); each place then
-//! costs a few multiply-adds and, once the climate is ready, a lookup in a small temperature
-//! table, run in parallel with `par_iter_mut`, so a million places stay cheap.
+//! describe. The maths is the core's: the star's single-precision frame
+//! ([`insola::StarFrameF32`], eclipses included) and the climate's turned table
+//! ([`insola::climate::PlaceTable`]); this file keeps the components, the cadence and the walk
+//! over the component columns, run in parallel, so a million places stay cheap.
 //!
 //! Both components are kept small (28 and 16 bytes) because at a million places the update is
 //! bound by memory traffic and latency: a place is stored as the single-precision sines and
 //! cosines of its latitude and longitude (about 0.3 m on an Earth-sized planet) and where it
 //! reads the temperature table, and the star's altitude is kept as its sine (the angle is
 //! [`LocalConditions::star_altitude_rad`]). Altitudes agree with the core to about 1e-6 rad,
-//! and to 0.05° within a degree of the zenith.
+//! and to 0.05° within a degree of the zenith; an observer at the reference place sees the
+//! [`SkyState`](crate::SkyState)'s star, insolation and eclipse to single precision.
 //!
 //! Temperatures: with fewer than [`TABLE_MIN_PLACES`] observers each place asks the climate
 //! model directly; with more, they share a [`ClimateSnapshot`] that is rebuilt when the time of
@@ -24,12 +26,12 @@
 use std::sync::Arc;
 
 use bevy::prelude::*;
+use insola::climate::{ClimateSnapshot, PlaceCell, PlaceTable};
 use insola::error::QueryError;
-use insola::{Place, Planet};
+use insola::{Place, PlaceF32, Planet, StarFrameF32, WorldClimate};
 
-use crate::climate::{ClimateModel, ClimateSnapshot, SeasonalClimate};
+use crate::climate::SeasonalClimate;
 use crate::clock::WorldClock;
-use crate::observer_table::{LongitudeTable, TableCell};
 use crate::season::{SeasonOfYear, ThermalSeason};
 use crate::settings::{InsolaSettings, ObserverInterval};
 use crate::world_asset::ActiveWorld;
@@ -43,8 +45,9 @@ pub const TABLE_MIN_PLACES: usize = 256;
 /// most 0.1 K between rebuilds).
 pub const TABLE_REFRESH_YEAR_FRACTION: f64 = 1e-3;
 
-/// A place on the planet: latitude and longitude, kept as their single-precision sines and
-/// cosines and the place's cell in the observers' temperature table.
+/// A place on the planet: latitude and longitude, kept as the core's single-precision
+/// [`PlaceF32`] and the place's [`PlaceCell`] in the observers' temperature table (reflected
+/// as an opaque value).
 ///
 /// ```
 /// use bevy::prelude::*;
@@ -57,29 +60,24 @@ pub const TABLE_REFRESH_YEAR_FRACTION: f64 = 1e-3;
 /// # App::new().add_systems(Startup, spawn_villages).update();
 /// ```
 #[derive(Component, Debug, Clone, Copy, PartialEq, Reflect)]
-#[reflect(Component, Debug, Default, Clone)]
+#[reflect(opaque)]
+#[reflect(Component, Debug, Default, Clone, PartialEq)]
 #[require(LocalConditions)]
 pub struct SurfacePlace {
-    sin_lat: f32,
-    cos_lat: f32,
-    sin_lon: f32,
-    cos_lon: f32,
-    cell: TableCell,
+    place: PlaceF32,
+    cell: PlaceCell,
 }
 
 impl Default for SurfacePlace {
     /// Latitude 0, longitude 0.
     fn default() -> Self {
-        SurfacePlace::from_place(Place {
-            latitude_rad: 0.0,
-            longitude_rad: 0.0,
-        })
+        SurfacePlace::from_place(Place::normalised(0.0, 0.0))
     }
 }
 
 impl SurfacePlace {
     /// A place from degrees: latitude −90…90 (positive toward the north pole), east longitude
-    /// −360…360.
+    /// −360…360 ([`Place::from_degrees`]).
     pub fn from_degrees(latitude_deg: f64, longitude_deg: f64) -> Result<SurfacePlace, QueryError> {
         Ok(SurfacePlace::from_place(Place::from_degrees(
             latitude_deg,
@@ -87,42 +85,28 @@ impl SurfacePlace {
         )?))
     }
 
-    /// A place from the core's [`Place`] (radians; latitude clamped to ±π/2, longitude
-    /// wrapped to −π…π; a non-finite coordinate counts as 0).
+    /// A place from the core's [`Place`], normalised by the core's rule ([`Place::normalise`]:
+    /// latitude clamped to ±π/2, longitude wrapped to −π…π, a non-finite coordinate as 0).
     pub fn from_place(place: Place) -> SurfacePlace {
-        let finite = |x: f64| if x.is_finite() { x } else { 0.0 };
-        let lat = finite(place.latitude_rad)
-            .clamp(-std::f64::consts::FRAC_PI_2, std::f64::consts::FRAC_PI_2);
-        let lon = (finite(place.longitude_rad) + std::f64::consts::PI)
-            .rem_euclid(std::f64::consts::TAU)
-            - std::f64::consts::PI;
-        let (sin_lat, cos_lat) = lat.sin_cos();
-        let (sin_lon, cos_lon) = lon.sin_cos();
         SurfacePlace {
-            sin_lat: sin_lat as f32,
-            cos_lat: cos_lat as f32,
-            sin_lon: sin_lon as f32,
-            cos_lon: cos_lon as f32,
-            cell: TableCell::new(lat, lon),
+            place: PlaceF32::new(place),
+            cell: PlaceCell::new(place),
         }
     }
 
     /// The place as the core's [`Place`].
     pub fn place(&self) -> Place {
-        Place {
-            latitude_rad: self.latitude_rad(),
-            longitude_rad: self.longitude_rad(),
-        }
+        self.place.place()
     }
 
     /// Latitude, radians.
     pub fn latitude_rad(&self) -> f64 {
-        f64::from(self.sin_lat).atan2(f64::from(self.cos_lat))
+        self.place.latitude_rad()
     }
 
     /// East longitude, radians, −π…π.
     pub fn longitude_rad(&self) -> f64 {
-        f64::from(self.sin_lon).atan2(f64::from(self.cos_lon))
+        self.place.longitude_rad()
     }
 }
 
@@ -132,7 +116,8 @@ impl SurfacePlace {
 pub struct LocalConditions {
     /// Sine of the geometric altitude of the star's centre (−1 to 1).
     pub sin_star_altitude: f32,
-    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻², with the star's eclipse
+    /// applied (as [`SkyState::toa_insolation_w_m2`](crate::SkyState)).
     pub toa_insolation_w_m2: f32,
     /// Surface air temperature, °C (zonal seasonal mean plus the day-night swing; `NaN` until
     /// the climate is ready).
@@ -170,38 +155,28 @@ enum FrameClimate {
     None,
     /// One climate query per place.
     Direct {
-        model: Arc<ClimateModel>,
+        model: Arc<WorldClimate>,
         year_fraction: f64,
     },
     /// A shared table turned to this instant (many places).
-    Table(Box<LongitudeTable>),
+    Table(Box<PlaceTable>),
 }
 
-/// The star's state at one instant, everything per-place work needs (computed once per update).
+/// One observer update: the core's star frame of the instant, the seasons of both
+/// hemispheres and the climate source (built once per update).
 #[derive(Debug, Clone, Default)]
-pub struct StarFrame {
-    /// World time, seconds since time zero.
-    pub t_s: f64,
-    sin_dec: f32,
-    cos_dec: f32,
-    /// Geometric hour angle at longitude 0 (sidereal angle − right ascension), radians.
-    hour_angle_0_rad: f64,
-    sin_h0: f32,
-    cos_h0: f32,
-    /// +1 on forward-spinning worlds, −1 on backward ones.
-    sense: f32,
-    toa_flux_w_m2: f32,
-    sin_rise_altitude: f32,
+pub struct ObserverFrame {
+    star: StarFrameF32,
     season_north: SeasonOfYear,
     season_south: SeasonOfYear,
     climate: FrameClimate,
 }
 
-impl StarFrame {
+impl ObserverFrame {
     /// The frame of `planet` at `t_s`; temperatures are asked of `climate`'s model place by
-    /// place (see [`StarFrame::with_table`] for many places).
-    pub fn new(planet: &Planet, t_s: f64, climate: Option<&SeasonalClimate>) -> StarFrame {
-        let mut frame = StarFrame::star_only(planet, t_s);
+    /// place (see [`ObserverFrame::with_table`] for many places).
+    pub fn new(planet: &Planet, t_s: f64, climate: Option<&SeasonalClimate>) -> ObserverFrame {
+        let mut frame = ObserverFrame::star_only(planet, t_s);
         if let Some(model) = climate.and_then(SeasonalClimate::model_arc) {
             frame.climate = FrameClimate::Direct {
                 year_fraction: model.year_fraction(t_s),
@@ -212,54 +187,51 @@ impl StarFrame {
     }
 
     /// The frame of `planet` at `t_s`, with temperatures from a shared table of the climate at
-    /// this time of year (see [`ClimateModel::snapshot`]).
-    pub fn with_table(planet: &Planet, t_s: f64, snapshot: &ClimateSnapshot) -> StarFrame {
-        let mut frame = StarFrame::star_only(planet, t_s);
-        let sense = f64::from(frame.sense);
-        // The table's hour-angle coordinate at longitude 0, in turns past −180°.
-        let turns_0 =
-            (0.5 + sense * frame.hour_angle_0_rad / std::f64::consts::TAU).rem_euclid(1.0);
-        if let Some(table) = LongitudeTable::turned(snapshot, turns_0, sense) {
+    /// this time of year (see [`WorldClimate::snapshot`]).
+    pub fn with_table(planet: &Planet, t_s: f64, snapshot: &ClimateSnapshot) -> ObserverFrame {
+        let mut frame = ObserverFrame::star_only(planet, t_s);
+        if let Some(table) = PlaceTable::turned(
+            snapshot,
+            frame.star.hour_angle_0_rad(),
+            frame.star.spin_sign(),
+        ) {
             frame.climate = FrameClimate::Table(Box::new(table));
         }
         frame
     }
 
-    fn star_only(planet: &Planet, t_s: f64) -> StarFrame {
-        let i = planet.star_instant(t_s);
-        let h0 = (i.sidereal_angle_rad - i.right_ascension_rad).rem_euclid(std::f64::consts::TAU);
-        let (sin_h0, cos_h0) = h0.sin_cos();
-        let sense = planet.spin().sense.sign();
-        StarFrame {
-            t_s,
-            sin_dec: i.sin_declination as f32,
-            cos_dec: i.cos_declination as f32,
-            hour_angle_0_rad: h0,
-            sin_h0: sin_h0 as f32,
-            cos_h0: cos_h0 as f32,
-            sense: sense as f32,
-            toa_flux_w_m2: i.toa_flux_w_m2 as f32,
-            sin_rise_altitude: planet.standard_rise_altitude_rad().sin() as f32,
-            season_north: SeasonOfYear::at(i.ecliptic_longitude_rad, 1.0),
-            season_south: SeasonOfYear::at(i.ecliptic_longitude_rad, -1.0),
+    fn star_only(planet: &Planet, t_s: f64) -> ObserverFrame {
+        let star = planet.star_frame(t_s);
+        let ecliptic_longitude = star.instant().ecliptic_longitude_rad;
+        ObserverFrame {
+            star: star.to_f32(),
+            season_north: SeasonOfYear::at(ecliptic_longitude, 1.0),
+            season_south: SeasonOfYear::at(ecliptic_longitude, -1.0),
             climate: FrameClimate::None,
         }
+    }
+
+    /// World time of this frame, seconds since time zero.
+    pub fn world_time_s(&self) -> f64 {
+        self.star.t_s()
+    }
+
+    /// The core's star frame.
+    pub fn star(&self) -> &StarFrameF32 {
+        &self.star
     }
 
     /// The conditions at `place`.
     #[inline(always)]
     pub fn conditions(&self, place: &SurfacePlace) -> LocalConditions {
-        // cos(H0 + λ) by the angle-sum rule, from the cached sine and cosine of λ.
-        let cos_h = self.cos_h0 * place.cos_lon - self.sin_h0 * place.sin_lon;
-        let sin_alt =
-            (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
+        let sky = self.star.at(&place.place);
         let (temperature_c, thermal_season) = self.climate_at(place);
         LocalConditions {
-            sin_star_altitude: sin_alt,
-            toa_insolation_w_m2: self.toa_flux_w_m2 * sin_alt.max(0.0),
+            sin_star_altitude: sky.sin_altitude,
+            toa_insolation_w_m2: sky.toa_insolation_w_m2,
             temperature_c,
-            star_is_up: sin_alt > self.sin_rise_altitude,
-            season: if place.sin_lat < 0.0 {
+            star_is_up: sky.is_up,
+            season: if place.place.sin_lat < 0.0 {
                 self.season_south
             } else {
                 self.season_north
@@ -272,16 +244,19 @@ impl StarFrame {
     fn climate_at(&self, place: &SurfacePlace) -> (f32, ThermalSeason) {
         match &self.climate {
             FrameClimate::None => (f32::NAN, ThermalSeason::Unknown),
-            FrameClimate::Table(table) => table.at(&place.cell),
+            FrameClimate::Table(table) => {
+                let (t, season) = table.at(&place.cell);
+                (t, season.into())
+            }
             FrameClimate::Direct {
                 model,
                 year_fraction,
             } => {
-                // The climate takes the hour angle in the sense the sky turns.
-                let h = f64::from(self.sense) * (self.hour_angle_0_rad + place.longitude_rad());
+                let lat = place.latitude_rad();
+                let h = self.star.hour_angle_at_rad(place.longitude_rad());
                 (
-                    model.temperature_c(place.latitude_rad(), *year_fraction, h) as f32,
-                    model.season(place.latitude_rad(), *year_fraction).into(),
+                    model.temperature_c(lat, *year_fraction, h) as f32,
+                    model.season(lat, *year_fraction).into(),
                 )
             }
         }
@@ -295,15 +270,15 @@ pub(crate) struct ObserverCadence {
     last_world_s: f64,
     generation: u64,
     climate_ready: bool,
-    frame: StarFrame,
+    frame: ObserverFrame,
     /// The shared table, the climate model it came from and its year fraction.
-    table: Option<(Arc<ClimateSnapshot>, Arc<ClimateModel>, f64)>,
+    table: Option<(Arc<ClimateSnapshot>, Arc<WorldClimate>, f64)>,
 }
 
 impl ObserverCadence {
     /// The shared table for `model` at `year_fraction`, rebuilt if it belongs to another model
     /// or time of year.
-    fn table(&mut self, model: Arc<ClimateModel>, year_fraction: f64) -> Arc<ClimateSnapshot> {
+    fn table(&mut self, model: Arc<WorldClimate>, year_fraction: f64) -> Arc<ClimateSnapshot> {
         let fresh = self.table.as_ref().is_some_and(|(_, m, f)| {
             let moved = (year_fraction - f).rem_euclid(1.0);
             Arc::ptr_eq(m, &model) && moved.min(1.0 - moved) < TABLE_REFRESH_YEAR_FRACTION
@@ -361,9 +336,9 @@ pub(crate) fn update_observers(
         cadence.frame = match climate.and_then(SeasonalClimate::model_arc) {
             Some(model) if many => {
                 let snapshot = cadence.table(model.clone(), model.year_fraction(now_world));
-                StarFrame::with_table(planet, now_world, &snapshot)
+                ObserverFrame::with_table(planet, now_world, &snapshot)
             }
-            _ => StarFrame::new(planet, now_world, climate),
+            _ => ObserverFrame::new(planet, now_world, climate),
         };
         cadence.last_real_s = Some(now_real);
         cadence.last_world_s = now_world;
@@ -401,7 +376,11 @@ pub(crate) fn update_observers(
 const PLACES_PER_TASK: usize = 16_384;
 
 /// Writes `conditions[i]` for `places[i]`, in parallel on the compute task pool if there is one.
-fn update_columns(frame: &StarFrame, places: &[SurfacePlace], conditions: &mut [LocalConditions]) {
+fn update_columns(
+    frame: &ObserverFrame,
+    places: &[SurfacePlace],
+    conditions: &mut [LocalConditions],
+) {
     let fill = |places: &[SurfacePlace], conditions: &mut [LocalConditions]| {
         for (place, out) in places.iter().zip(conditions) {
             *out = frame.conditions(place);
@@ -454,7 +433,7 @@ mod tests {
         let planet = Planet::new(&WorldSpec::from_ron_str(text).unwrap()).unwrap();
         for k in 0..40 {
             let t = k as f64 * 98_765.4;
-            let frame = StarFrame::new(&planet, t, None);
+            let frame = ObserverFrame::new(&planet, t, None);
             for (lat, lon) in [(0.0, 0.0), (45.0, 100.0), (-70.0, -30.0), (89.0, 200.0)] {
                 let p = SurfacePlace::from_degrees(lat, lon).unwrap();
                 let c = frame.conditions(&p);

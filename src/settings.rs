@@ -191,20 +191,10 @@ impl InsolaSettings {
         Place::from_degrees(self.reference_latitude_deg, self.reference_longitude_deg).ok()
     }
 
-    /// The reference place with out-of-range values clamped (latitude to ±90°, longitude to
-    /// ±360°, non-finite values to 0).
+    /// The reference place by the core's rule ([`Place::normalised`]): latitude clamped to
+    /// ±90°, longitude wrapped to ±180°, non-finite values taken as 0.
     pub fn reference_place_clamped(&self) -> Place {
-        let fix = |v: f64, lim: f64| {
-            if v.is_finite() {
-                v.clamp(-lim, lim)
-            } else {
-                0.0
-            }
-        };
-        Place {
-            latitude_rad: fix(self.reference_latitude_deg, 90.0).to_radians(),
-            longitude_rad: fix(self.reference_longitude_deg, 360.0).to_radians(),
-        }
+        Place::normalised(self.reference_latitude_deg, self.reference_longitude_deg)
     }
 }
 

@@ -13,5 +13,6 @@ mod flash_guard;
 mod lights;
 mod observers;
 mod parts;
+mod reference_observer;
 mod save_games;
 mod world_files;

@@ -6,7 +6,7 @@
 
 use std::hint::black_box;
 
-use bevy_insola::{LocalConditions, StarFrame, SurfacePlace};
+use bevy_insola::{LocalConditions, ObserverFrame, SurfacePlace};
 use bevy_insola_bench::{empty_query_app, observers_app, places, touching_app, verdance};
 use criterion::{BenchmarkId, Criterion, Throughput, criterion_main};
 
@@ -57,8 +57,8 @@ fn per_place(c: &mut Criterion) {
     let climate = app.world().resource::<bevy_insola::SeasonalClimate>();
     let model = climate.model().expect("climate ready");
     let snapshot = model.snapshot(0.3);
-    let no_climate = StarFrame::new(&planet, 1.0e6, None);
-    let with_table = StarFrame::with_table(&planet, 1.0e6, &snapshot);
+    let no_climate = ObserverFrame::new(&planet, 1.0e6, None);
+    let with_table = ObserverFrame::with_table(&planet, 1.0e6, &snapshot);
     for (name, frame) in [
         ("star_only", &no_climate),
         ("star_and_climate_table", &with_table),

@@ -2,7 +2,7 @@
 //!
 //! A [`PlaceBatch`] stores each place's sine and cosine of latitude and of longitude in
 //! separate arrays (structure of arrays), so the per-instant work ([`Planet::star_instant`]) is
-//! done once and each place costs a handful of multiply-adds: the hour angle's sine and cosine
+//! done once (the same per-instant meridian as [`crate::star_frame`]) and each place costs a handful of multiply-adds: the hour angle's sine and cosine
 //! come from the angle-sum rule with the instant's hour angle at longitude 0, not from a
 //! `sin_cos` per place. At a million places the work is then bound by memory traffic. The
 //! parallel forms split the places into chunks over rayon's thread pool; results are identical
@@ -14,6 +14,7 @@ use rayon::prelude::*;
 
 use crate::planet::Planet;
 use crate::sky::{Place, StarInstant};
+use crate::star_frame::Meridian;
 
 /// Places prepared for batch queries.
 #[derive(Debug, Clone, Default, PartialEq)]
@@ -68,55 +69,6 @@ impl PlaceBatch {
     }
 }
 
-/// What every place's work needs from the instant: the star's declination and the hour angle
-/// at longitude 0, as sines and cosines.
-#[derive(Clone, Copy)]
-struct Frame {
-    sin_dec: f64,
-    cos_dec: f64,
-    sin_h0: f64,
-    cos_h0: f64,
-}
-
-impl Frame {
-    fn new(i: &StarInstant) -> Frame {
-        let (sin_h0, cos_h0) = (i.sidereal_angle_rad - i.right_ascension_rad).sin_cos();
-        Frame {
-            sin_dec: i.sin_declination,
-            cos_dec: i.cos_declination,
-            sin_h0,
-            cos_h0,
-        }
-    }
-
-    /// Sine and cosine of the hour angle at a longitude of sine `sl` and cosine `cl`.
-    #[inline]
-    fn hour_angle(&self, sl: f64, cl: f64) -> (f64, f64) {
-        (
-            self.sin_h0 * cl + self.cos_h0 * sl,
-            self.cos_h0 * cl - self.sin_h0 * sl,
-        )
-    }
-
-    #[inline]
-    fn direction(&self, p: [f64; 4]) -> DVec3 {
-        let [sin_lat, cos_lat, sl, cl] = p;
-        let (sh, ch) = self.hour_angle(sl, cl);
-        DVec3::new(
-            -self.cos_dec * sh,
-            cos_lat * self.sin_dec - sin_lat * self.cos_dec * ch,
-            sin_lat * self.sin_dec + cos_lat * self.cos_dec * ch,
-        )
-    }
-
-    #[inline]
-    fn up_component(&self, p: [f64; 4]) -> f64 {
-        let [sin_lat, cos_lat, sl, cl] = p;
-        let (_, ch) = self.hour_angle(sl, cl);
-        sin_lat * self.sin_dec + cos_lat * self.cos_dec * ch
-    }
-}
-
 impl Planet {
     /// Unit vectors toward the star (east, north, up) for every place of `batch`, written to
     /// `out` (which must have `batch.len()` elements; extra elements are left untouched).
@@ -126,7 +78,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [DVec3],
     ) {
-        let frame = Frame::new(instant);
+        let frame = Meridian::new(instant);
         let n = batch.len().min(out.len());
         for (k, o) in out[..n].iter_mut().enumerate() {
             *o = frame.direction(batch.place(k));
@@ -140,7 +92,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [DVec3],
     ) {
-        let frame = Frame::new(instant);
+        let frame = Meridian::new(instant);
         fill_par(batch, out, |p| frame.direction(p));
     }
 
@@ -152,7 +104,7 @@ impl Planet {
         batch: &PlaceBatch,
         out: &mut [f64],
     ) {
-        let frame = Frame::new(instant);
+        let frame = Meridian::new(instant);
         fill_par(batch, out, |p| frame.up_component(p));
     }
 }

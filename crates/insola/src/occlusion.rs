@@ -25,10 +25,18 @@
 //! one definition, an observer at the scene's reference place sees exactly the eclipse the
 //! scene's light shows.
 //!
+//! Bulk consumers (the star frames of [`crate::star_frame`], a million places per instant) ask
+//! in two steps: once per instant, [`Planet::occluders_in_reach`] keeps the occluders that can
+//! cover the star from *somewhere* on the planet (a planet-wide test: the elongation seen from
+//! the centre against the largest parallax and disc sizes any surface point can see) as
+//! [`OccluderSight`]s; then each place costs nothing when that list is empty and a few square
+//! roots per listed occluder when it is not ([`OccluderSight::cover`]).
+//!
 //! Overlapping occluders are not combined: the hidden fraction is the largest single cover
 //! (two moons over one star at once are rare enough that the error is accepted; a ring with an
 //! optical depth will multiply transmissions instead, which is exact for independent layers).
 
+use glam::DVec3;
 use serde::{Deserialize, Serialize};
 
 use crate::planet::Planet;
@@ -71,6 +79,96 @@ impl Occlusion {
     }
 }
 
+/// Margin on the planet-wide reach test, radians (rounding only; common practice, no source).
+const REACH_MARGIN_RAD: f64 = 1e-9;
+
+/// One occluder and the star at one instant, in the planet's rotating frame (x toward the prime
+/// meridian on the equator, z toward the north pole), so that a place's position is its
+/// latitude's and longitude's sines and cosines times the radius: what a place needs to find
+/// how much of the star this occluder hides for it.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct OccluderSight {
+    /// The occluder.
+    pub occluder: Occluder,
+    /// The occluder's centre relative to the planet's, rotating frame, metres.
+    occluder_m: [f64; 3],
+    /// The star's centre relative to the planet's, rotating frame, metres.
+    star_m: [f64; 3],
+    /// Radius of the occluder, metres.
+    occluder_radius_m: f64,
+    /// Angular radius of the star's disc, radians (as every cover takes it: seen from the
+    /// planet's centre).
+    star_radius_rad: f64,
+    /// The planet's radius, metres.
+    planet_radius_m: f64,
+}
+
+impl OccluderSight {
+    /// Fraction of the star's disc this occluder hides, 0–1, for the place whose latitude has
+    /// sine `sin_lat` and cosine `cos_lat` and whose east longitude has sine `sin_lon` and cosine
+    /// `cos_lon`. Agrees with [`Planet::occluder_cover`] to rounding (about 1e-12).
+    #[inline]
+    pub fn cover(&self, sin_lat: f64, cos_lat: f64, sin_lon: f64, cos_lon: f64) -> f64 {
+        let r = self.planet_radius_m;
+        let observer = DVec3::new(cos_lat * cos_lon * r, cos_lat * sin_lon * r, sin_lat * r);
+        let to_occluder = DVec3::from_array(self.occluder_m) - observer;
+        let to_star = DVec3::from_array(self.star_m) - observer;
+        let elongation = crate::moons::angle_between(to_occluder, to_star);
+        let occluder_radius =
+            crate::light::angular_radius(self.occluder_radius_m, to_occluder.length());
+        crate::light::covered_fraction(self.star_radius_rad, occluder_radius, elongation)
+    }
+
+    /// [`OccluderSight::cover`] for a [`Place`].
+    pub fn cover_at(&self, place: Place) -> f64 {
+        let (sin_lat, cos_lat) = place.latitude_rad.sin_cos();
+        let (sin_lon, cos_lon) = place.longitude_rad.sin_cos();
+        self.cover(sin_lat, cos_lat, sin_lon, cos_lon)
+    }
+
+    /// `true` if the occluder can hide part of the star from some point of the planet's
+    /// surface at this instant (conservative: never `false` while it covers the star anywhere).
+    pub fn reaches_planet(&self) -> bool {
+        let r = self.planet_radius_m;
+        let occluder = DVec3::from_array(self.occluder_m);
+        let star = DVec3::from_array(self.star_m);
+        let (d_occluder, d_star) = (occluder.length(), star.length());
+        if d_occluder <= r || d_star <= r {
+            return true;
+        }
+        // From a point at distance r from the centre, a direction to a body at distance d
+        // turns by at most asin(r/d) (the parallax), and the body's disc grows to at most
+        // asin(radius/(d − r)); the elongation seen there is at least the centre's minus both
+        // parallaxes (triangle inequality on the sphere of directions).
+        let parallax = (r / d_occluder).asin() + (r / d_star).asin();
+        let largest_disc = crate::light::angular_radius(self.occluder_radius_m, d_occluder - r);
+        crate::moons::angle_between(occluder, star) - parallax
+            < largest_disc + self.star_radius_rad + REACH_MARGIN_RAD
+    }
+}
+
+/// Largest cover among `sights` for one place (the module's rule for combining occluders).
+#[inline]
+pub(crate) fn occlusion_among(
+    sights: &[OccluderSight],
+    sin_lat: f64,
+    cos_lat: f64,
+    sin_lon: f64,
+    cos_lon: f64,
+) -> Occlusion {
+    let mut out = Occlusion::CLEAR;
+    for sight in sights {
+        let cover = sight.cover(sin_lat, cos_lat, sin_lon, cos_lon);
+        if cover > out.hidden_fraction {
+            out = Occlusion {
+                hidden_fraction: cover.min(1.0),
+                by: Some(sight.occluder),
+            };
+        }
+    }
+    out
+}
+
 /// Safety factor on the rate bounds of [`OccluderMotion`] (common practice, no source).
 const OCCLUDER_RATE_MARGIN: f64 = 1.25;
 
@@ -89,6 +187,49 @@ impl Planet {
     /// the occlusion work on worlds without moons).
     pub fn has_occluders(&self) -> bool {
         !self.moon_orbits().is_empty()
+    }
+
+    /// `occluder` and the star at a precomputed instant, for many places (`None` for an
+    /// occluder this world does not have).
+    pub fn occluder_sight(
+        &self,
+        occluder: Occluder,
+        instant: &StarInstant,
+    ) -> Option<OccluderSight> {
+        match occluder {
+            Occluder::Moon(i) => {
+                let orbit = self.moon_orbits().get(i)?;
+                let tilt = self.spin().tilt_rad;
+                let (s, c) = instant.sidereal_angle_rad.sin_cos();
+                // Ecliptic → equatorial (about x), then into the rotating frame (about z by
+                // minus the rotation angle).
+                let rotating = |v: DVec3| {
+                    let e = crate::frames::equatorial_from_ecliptic(v, tilt);
+                    [c * e.x + s * e.y, c * e.y - s * e.x, e.z]
+                };
+                let (sl, cl) = instant.ecliptic_longitude_rad.sin_cos();
+                let star =
+                    DVec3::new(cl, sl, 0.0) * (instant.distance_factor * self.semi_major_axis_m());
+                Some(OccluderSight {
+                    occluder,
+                    occluder_m: rotating(orbit.position_at(instant.t_s)),
+                    star_m: rotating(star),
+                    occluder_radius_m: orbit.radius_m,
+                    star_radius_rad: instant.angular_radius_rad,
+                    planet_radius_m: self.body().radius_km * 1000.0,
+                })
+            }
+        }
+    }
+
+    /// The occluders that can hide part of the star from somewhere on the planet at a
+    /// precomputed instant (the planet-wide test of [`OccluderSight::reaches_planet`]), in
+    /// [`Planet::occluders`] order; empty on most instants and on worlds without moons.
+    pub fn occluders_in_reach(&self, instant: &StarInstant) -> Vec<OccluderSight> {
+        self.occluders()
+            .filter_map(|o| self.occluder_sight(o, instant))
+            .filter(OccluderSight::reaches_planet)
+            .collect()
     }
 
     /// Fraction of the star's disc that `occluder` hides for `place` at a precomputed instant,

@@ -35,6 +35,36 @@ impl Place {
             longitude_rad: longitude_deg.to_radians(),
         })
     }
+
+    /// A place from any degrees, never failing: latitude clamped to −90…90, east longitude
+    /// wrapped to −180…180 (−180 included), a non-finite coordinate taken as 0. The one rule
+    /// for places typed by people or derived from scene positions (see [`Place::normalise`]).
+    ///
+    /// ```
+    /// use insola::Place;
+    /// let p = Place::normalised(95.0, 200.0);
+    /// assert_eq!(p.latitude_rad, 90f64.to_radians());
+    /// assert!((p.longitude_rad - (-160f64).to_radians()).abs() < 1e-12);
+    /// assert_eq!(Place::normalised(f64::NAN, 0.0), Place::normalised(0.0, 0.0));
+    /// ```
+    pub fn normalised(latitude_deg: f64, longitude_deg: f64) -> Place {
+        Place {
+            latitude_rad: latitude_deg.to_radians(),
+            longitude_rad: longitude_deg.to_radians(),
+        }
+        .normalise()
+    }
+
+    /// This place with its latitude clamped to `[−π/2, π/2]`, its longitude wrapped to
+    /// `[−π, π)` and a non-finite coordinate taken as 0: the rule behind [`Place::normalised`].
+    pub fn normalise(self) -> Place {
+        use std::f64::consts::{FRAC_PI_2, TAU};
+        let finite = |x: f64| if x.is_finite() { x } else { 0.0 };
+        Place {
+            latitude_rad: finite(self.latitude_rad).clamp(-FRAC_PI_2, FRAC_PI_2),
+            longitude_rad: (finite(self.longitude_rad) + PI).rem_euclid(TAU) - PI,
+        }
+    }
 }
 
 /// Everything about the star at one instant that does not depend on the place.
@@ -132,19 +162,7 @@ impl Planet {
     /// The star seen from `place` at a precomputed instant.
     #[inline]
     pub fn star_position_at(&self, instant: &StarInstant, place: Place) -> StarPosition {
-        let (sl, cl) = place.latitude_rad.sin_cos();
-        let h_geo = instant.sidereal_angle_rad + place.longitude_rad - instant.right_ascension_rad;
-        let (sd, cd) = (instant.sin_declination, instant.cos_declination);
-        let (sh, ch) = h_geo.sin_cos();
-        let enu = DVec3::new(-cd * sh, cl * sd - sl * cd * ch, sl * sd + cl * cd * ch);
-        let (alt, az) = altitude_azimuth(enu);
-        StarPosition {
-            altitude_rad: alt,
-            azimuth_rad: az,
-            hour_angle_rad: wrap_pi(self.spin().sense.sign() * h_geo),
-            direction_enu: enu,
-            toa_insolation_w_m2: instant.toa_flux_w_m2 * enu.z.max(0.0),
-        }
+        star_position_from(instant, place, self.spin().sense.sign())
     }
 
     /// The star seen from `place` at world time `t_s`.
@@ -171,6 +189,26 @@ impl Planet {
             i.declination_rad,
             i.distance_factor,
         )
+    }
+}
+
+/// The star seen from `place` at a precomputed instant on a world spinning in `sense` (+1
+/// forward, −1 backward): the one formula behind [`Planet::star_position_at`] and the star
+/// frames ([`crate::star_frame`]).
+#[inline]
+pub(crate) fn star_position_from(instant: &StarInstant, place: Place, sense: f64) -> StarPosition {
+    let (sl, cl) = place.latitude_rad.sin_cos();
+    let h_geo = instant.sidereal_angle_rad + place.longitude_rad - instant.right_ascension_rad;
+    let (sd, cd) = (instant.sin_declination, instant.cos_declination);
+    let (sh, ch) = h_geo.sin_cos();
+    let enu = DVec3::new(-cd * sh, cl * sd - sl * cd * ch, sl * sd + cl * cd * ch);
+    let (alt, az) = altitude_azimuth(enu);
+    StarPosition {
+        altitude_rad: alt,
+        azimuth_rad: az,
+        hour_angle_rad: wrap_pi(sense * h_geo),
+        direction_enu: enu,
+        toa_insolation_w_m2: instant.toa_flux_w_m2 * enu.z.max(0.0),
     }
 }
 

@@ -1,10 +1,12 @@
-//! The climate model driven by a [`Planet`]'s orbit: forcing, equilibrium and local weather.
+//! The climate model driven by a [`Planet`]'s orbit: forcing, equilibrium and local weather,
+//! and [`WorldClimate`], an equilibrated cycle bundled with its world's year and day for
+//! queries by world time.
 
 use serde::{Deserialize, Serialize};
 
 use crate::climate::{
-    AnnualForcing, ClimateCycle, ClimateError, ClimateSpec, ClimateZone, Season, SeasonSample,
-    equilibrate,
+    AnnualForcing, ClimateCycle, ClimateError, ClimateSnapshot, ClimateSpec, ClimateZone, Season,
+    SeasonSample, equilibrate,
 };
 use crate::error::QueryError;
 use crate::planet::Planet;
@@ -23,6 +25,87 @@ pub struct LocalClimate {
     pub zone: ClimateZone,
 }
 
+/// A world's equilibrated climate, ready for queries by latitude, time of year and the star's
+/// hour angle: the cycle with the world's year and mean solar day.
+#[derive(Debug, Clone)]
+pub struct WorldClimate {
+    cycle: Box<ClimateCycle>,
+    year_s: f64,
+    day_s: f64,
+}
+
+/// Fraction of a year of `year_s` seconds elapsed at `t_s` since the last whole year from time
+/// zero, `[0, 1)`.
+fn year_fraction_of(t_s: f64, year_s: f64) -> f64 {
+    (t_s.rem_euclid(year_s) / year_s).clamp(0.0, 1.0 - f64::EPSILON)
+}
+
+impl WorldClimate {
+    /// Equilibrates the climate of `planet` ([`Planet::equilibrate_climate`]; milliseconds to
+    /// tens of milliseconds).
+    ///
+    /// # Errors
+    /// As [`Planet::equilibrate_climate`]; [`ClimateError::NotConverged`] carries the last
+    /// year, which [`WorldClimate::from_cycle`] accepts.
+    pub fn equilibrate(planet: &Planet) -> Result<WorldClimate, ClimateError> {
+        Ok(WorldClimate::from_cycle(
+            planet,
+            planet.equilibrate_climate()?,
+        ))
+    }
+
+    /// `cycle`, computed for `planet`, ready for queries. A tidally locked world's day-night
+    /// cycle is its year.
+    pub fn from_cycle(planet: &Planet, cycle: ClimateCycle) -> WorldClimate {
+        let day_s = planet.day_s();
+        WorldClimate {
+            cycle: Box::new(cycle),
+            year_s: planet.year_s(),
+            day_s: if day_s.is_finite() && day_s > 0.0 {
+                day_s
+            } else {
+                planet.year_s()
+            },
+        }
+    }
+
+    /// The climate cycle: band statistics, ice edges, zones, summaries.
+    pub fn cycle(&self) -> &ClimateCycle {
+        &self.cycle
+    }
+
+    /// Fraction of the climate year at world time `t_s`, `[0, 1)` (as
+    /// [`Planet::year_fraction`]).
+    pub fn year_fraction(&self, t_s: f64) -> f64 {
+        year_fraction_of(t_s, self.year_s)
+    }
+
+    /// Zonal-mean surface temperature, °C, at latitude `lat_rad` and `year_fraction`.
+    pub fn zonal_temperature_c(&self, lat_rad: f64, year_fraction: f64) -> f64 {
+        self.cycle.temperature_c(lat_rad, year_fraction)
+    }
+
+    /// Local temperature, °C, at the reference elevation: zonal mean plus the day-night
+    /// deviation at the star's local hour angle `hour_angle_rad` (0 at local transit, growing
+    /// with time). `NaN` for a latitude outside ±π/2 or a non-finite input.
+    pub fn temperature_c(&self, lat_rad: f64, year_fraction: f64, hour_angle_rad: f64) -> f64 {
+        self.cycle
+            .instant(year_fraction, self.day_s)
+            .and_then(|i| i.temperature_c(lat_rad, hour_angle_rad, 0.0))
+            .unwrap_or(f64::NAN)
+    }
+
+    /// The season, following the local temperature cycle, at `lat_rad` and `year_fraction`.
+    pub fn season(&self, lat_rad: f64, year_fraction: f64) -> Season {
+        self.cycle.season(lat_rad, year_fraction)
+    }
+
+    /// The table of `year_fraction` for fast per-place lookups.
+    pub fn snapshot(&self, year_fraction: f64) -> ClimateSnapshot {
+        self.cycle.snapshot(year_fraction, self.day_s)
+    }
+}
+
 impl Planet {
     /// The world's climate parameters (its file's `climate` section, or the defaults).
     pub fn climate_spec(&self) -> ClimateSpec {
@@ -31,7 +114,7 @@ impl Planet {
 
     /// Fraction of the orbit elapsed since the last time-zero anniversary, `[0, 1)`.
     pub fn year_fraction(&self, t_s: f64) -> f64 {
-        (t_s.rem_euclid(self.year_s()) / self.year_s()).clamp(0.0, 1.0 - f64::EPSILON)
+        year_fraction_of(t_s, self.year_s())
     }
 
     /// The orbit's forcing as the climate model takes it: `steps` samples of declination and
@@ -93,6 +176,22 @@ mod tests {
         ))
         .unwrap();
         Planet::new(&WorldSpec::from_ron_str(&text).unwrap()).unwrap()
+    }
+
+    #[test]
+    fn world_climate_snapshot_agrees_with_direct_queries() {
+        let p = planet("verdance.world.ron");
+        let m = crate::WorldClimate::equilibrate(&p).unwrap();
+        let lat = 50f64.to_radians();
+        let snap = m.snapshot(0.35);
+        let direct = m.temperature_c(lat, 0.35, 0.3);
+        // Within the table's interpolation error.
+        assert!((f64::from(snap.temperature_c(lat, 0.3)) - direct).abs() < 0.5);
+        assert_eq!(snap.season(lat), Some(m.season(lat, 0.35)));
+        assert_eq!(
+            m.year_fraction(1.5 * p.year_s()),
+            p.year_fraction(1.5 * p.year_s())
+        );
     }
 
     #[test]

@@ -38,6 +38,8 @@
 //! (exact periodic solution of a linear equation; large for slow rotators, small for fast ones)
 //! and subtracts `lapse_rate_k_per_km × elevation`. [`Season`], [`ClimateZone`] and
 //! [`ClimateCycle::band_summaries`] turn the cycle into words for gameplay and designers.
+//! For many places at once, [`ClimateSnapshot`] tabulates one time of year on a
+//! latitude × hour-angle grid and [`PlaceTable`] turns it to one instant.
 //!
 //! # Limits
 //!
@@ -56,7 +58,9 @@ mod equilibrium;
 mod forcing;
 mod grid;
 mod local;
+mod place_table;
 mod seasons;
+mod snapshot;
 mod spec;
 #[cfg(test)]
 mod validation;
@@ -68,5 +72,7 @@ pub use equilibrium::*;
 pub use forcing::*;
 pub use grid::*;
 pub use local::*;
+pub use place_table::*;
 pub use seasons::*;
+pub use snapshot::*;
 pub use spec::*;
