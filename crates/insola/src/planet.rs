@@ -141,7 +141,7 @@ impl Planet {
             })?;
         // Calendar days are the local days the clock counts: mean solar days, or sidereal days
         // on a tidally locked world.
-        let tropical_year_days = crate::calendar_design::tropical_year_s_of(&orbit) / day_s;
+        let tropical_year_days = crate::leap_rules::tropical_year_s_of(&orbit) / day_s;
         let calendar = Calendar::new(spec.calendar.as_ref(), tropical_year_days);
         Ok(Planet {
             calendar,

@@ -3,6 +3,7 @@
 
 use serde::{Deserialize, Serialize};
 
+use crate::leap_rules::whole_days;
 use crate::world::{CalendarSpec, LeapRule, MonthSpec, WeekSpec};
 
 /// A world's calendar, ready to count: years of `common_year_days` or one more day by the leap
@@ -37,7 +38,7 @@ impl Calendar {
             (Some(n), Some(rule)) => (n, rule.clone()),
             (Some(n), None) => (n, LeapRule::NONE),
             (None, Some(rule)) => (whole_days(tropical_year_days), rule.clone()),
-            (None, None) => crate::calendar_design::best_solar_rule(tropical_year_days),
+            (None, None) => crate::leap_rules::best_solar_rule(tropical_year_days),
         };
         let leap_month = if spec.months.is_empty() {
             None
@@ -174,14 +175,5 @@ impl Calendar {
     pub fn months_mismatch(&self) -> Option<u32> {
         let sum: u32 = self.months.iter().map(|m| m.days).sum();
         (!self.months.is_empty() && sum != self.common_year_days).then_some(sum)
-    }
-}
-
-/// Whole days of a year of `days` (at least 1).
-pub(crate) fn whole_days(days: f64) -> u32 {
-    if days.is_finite() {
-        days.floor().clamp(1.0, 1.0e7) as u32
-    } else {
-        1
     }
 }

@@ -4,7 +4,7 @@
 
 use serde::{Deserialize, Serialize};
 
-use super::fractions::{ApproximationKind, best_approximations};
+use crate::leap_rules::{ApproximationKind, best_approximations};
 
 /// Longest month cycle proposed, months.
 pub const MAX_CYCLE_MONTHS: u64 = 1000;

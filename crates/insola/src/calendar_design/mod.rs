@@ -11,18 +11,16 @@
 //! exceptions at round numbers of years. Each proposal carries its drift against the seasons
 //! and the range of dates of the northward equinox over one period of the rule.
 
-mod fractions;
 mod lunar;
 mod seasons;
-mod solar;
 
-pub use fractions::{Approximation, ApproximationKind, best_approximations};
-pub use lunar::{LunarProposal, LunisolarProposal, lunar_proposals, lunisolar_proposals};
-pub use seasons::{SEASON_MARK_NAMES, SeasonDate, SeasonWander};
-pub use solar::{
+pub use crate::leap_rules::{Approximation, ApproximationKind, best_approximations};
+pub use crate::leap_rules::{
     BEST_DRIFT_DAYS_PER_KY, DateWander, MAX_CYCLE_YEARS, SolarFamily, SolarProposal, best_index,
     best_solar_rule, offset_range, solar_proposals,
 };
+pub use lunar::{LunarProposal, LunisolarProposal, lunar_proposals, lunisolar_proposals};
+pub use seasons::{SEASON_MARK_NAMES, SeasonDate, SeasonWander};
 
 use serde::{Deserialize, Serialize};
 use thiserror::Error;
@@ -149,8 +147,4 @@ impl Planet {
     }
 }
 
-/// Tropical year of `orbit`: from one northward equinox to the next, seconds.
-pub(crate) fn tropical_year_s_of(orbit: &crate::orbit::Orbit) -> f64 {
-    let first = orbit.time_of_star_longitude(0.0, 0.0);
-    orbit.time_of_star_longitude(0.0, first + 0.5 * orbit.period_s) - first
-}
+pub(crate) use crate::leap_rules::tropical_year_s_of;

@@ -4,8 +4,9 @@
 use serde::{Deserialize, Serialize};
 use std::f64::consts::FRAC_PI_2;
 
-use super::{MAX_WANDER_YEARS, solar::offset_range};
+use super::MAX_WANDER_YEARS;
 use crate::calendar::CalendarDate;
+use crate::leap_rules::offset_range;
 use crate::planet::Planet;
 
 /// Names of the four season marks, in the order of the year from the northward equinox

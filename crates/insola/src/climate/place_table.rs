@@ -14,7 +14,7 @@ use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
 use super::Season;
 use super::snapshot::{ClimateSnapshot, SNAPSHOT_HOUR_ANGLES, SNAPSHOT_LATITUDES};
-use crate::sky::Place;
+use crate::place::Place;
 
 /// Longitude columns: the same count and spacing as the snapshot's hour-angle columns
 /// (−180° to 180°, the last column repeating the first).

@@ -4,7 +4,7 @@
 use serde::{Deserialize, Serialize};
 
 use super::fractions::{ApproximationKind, best_approximations};
-use crate::calendar::LeapRule;
+use crate::world::LeapRule;
 
 /// Longest leap cycle proposed, years.
 pub const MAX_CYCLE_YEARS: u64 = 1000;
@@ -234,10 +234,7 @@ pub fn best_solar_rule(tropical_year_days: f64) -> (u32, LeapRule) {
     let proposals = solar_proposals(tropical_year_days);
     match best_index(&proposals) {
         Some(i) => (proposals[i].year_days, proposals[i].leap.clone()),
-        None => (
-            crate::calendar::whole_days_of(tropical_year_days),
-            LeapRule::NONE,
-        ),
+        None => (super::whole_days(tropical_year_days), LeapRule::NONE),
     }
 }
 
