@@ -141,8 +141,15 @@ pub enum ClockError {
 ///
 /// Updated once per frame in [`InsolaSystems::AdvanceClock`](crate::InsolaSystems); after that
 /// set, [`WorldClock::now`] is this frame's instant and [`WorldClock::previous`] the last
-/// frame's, and every notification between them has been or is about to be sent. Serialise it
-/// (serde) in a save game to restore the exact instant.
+/// frame's, and every notification between them has been or is about to be sent.
+///
+/// Save games: serialise it with serde (JSON and RON both round-trip exactly; with serde_json
+/// enable its `float_roundtrip` feature for bit-exact fractions). A save holds the exact
+/// instant (whole seconds and fraction), the previous instant, the rate, whether it is paused
+/// (a clock saved paused restores paused), any pending [`WorldClock::step`], whether it follows
+/// `Time<Virtual>`'s pause, the frame-time cap and the real-seconds-per-day setting. A pending
+/// jump is not saved (the restored clock is already at its instant); the world itself is the
+/// world file's, not the clock's.
 ///
 /// ```
 /// use bevy_insola::WorldClock;
