@@ -200,7 +200,7 @@ fn world_tuner_window(
             ui.horizontal(|ui| {
                 ui.text_edit_singleline(&mut state.file_name);
                 if ui.button("save world").clicked() {
-                    state.saved = Some(save_world(&planet.spec(), &state.file_name));
+                    state.saved = Some(save_world(planet.spec(), &state.file_name));
                 }
             });
             if let Some(message) = &state.saved {
