@@ -45,7 +45,7 @@ fn main() -> AppExit {
             let Ok(place) = SurfacePlace::from_degrees(48.0, 0.0) else {
                 return;
             };
-            commands.spawn((Name::new("Hollin farm"), place, Farm::default()));
+            commands.spawn((Name::new("Brennick farm"), place, Farm::default()));
         })
         .add_systems(Update, (tend_the_farm, stop_after_a_year))
         .run()

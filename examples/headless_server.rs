@@ -2,7 +2,7 @@
 //! notifications (sunrise, twilights, moon phases, season turns) printed as they happen.
 //!
 //! ```sh
-//! cargo run --example headless_server -- tessaly-reach 3     # world, days to run
+//! cargo run --example headless_server -- calvenne 3     # world, days to run
 //! ```
 
 use std::time::Duration;

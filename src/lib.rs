@@ -49,7 +49,7 @@
 //! use bevy::prelude::*;
 //! use bevy_insola::prelude::*;
 //!
-//! let spec = insola::WorldSpec::from_ron_str(r#"(name: "Pellucid",
+//! let spec = insola::WorldSpec::from_ron_str(r#"(name: "Ennavel",
 //!     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
 //!     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02, periapsis_longitude_deg: 100, period_days: 300),
 //!     spin: (obliquity_deg: 20, solar_day_hours: 22))"#).unwrap();

@@ -73,13 +73,13 @@ impl AssetLoader for WorldFileLoader {
 ///
 /// ```
 /// use bevy_insola::ActiveWorld;
-/// let text = r#"(name: "Pellucid",
+/// let text = r#"(name: "Ennavel",
 ///     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
 ///     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02, periapsis_longitude_deg: 100, period_days: 300),
 ///     spin: (obliquity_deg: 20, solar_day_hours: 22))"#;
 /// let mut world = ActiveWorld::default();
 /// world.set_spec(&insola::WorldSpec::parse_unchecked(text).unwrap()).unwrap();
-/// assert_eq!(world.planet().unwrap().spec().name, "Pellucid");
+/// assert_eq!(world.planet().unwrap().spec().name, "Ennavel");
 /// assert_eq!(world.generation(), 1);
 /// ```
 #[derive(Resource, Debug, Default)]

@@ -10,8 +10,8 @@ pub const BUILT_IN: &[(&str, &str)] = &[
         include_str!("../../../assets/worlds/verdance.world.ron"),
     ),
     (
-        "tessaly-reach",
-        include_str!("../../../assets/worlds/tessaly-reach.world.ron"),
+        "calvenne",
+        include_str!("../../../assets/worlds/calvenne.world.ron"),
     ),
     (
         "oromar",

@@ -91,8 +91,8 @@ fn climate_json_has_sane_bands() {
     let edges = &v["ice_edge_lat_deg"];
     has(edges, &["north", "south"]);
     assert!(v["years_to_equilibrium"].as_u64().unwrap() >= 1);
-    // Tessaly Reach (tilt 62°): poles warmer than the equator over the year.
-    let t = json(&["climate", "tessaly-reach", "--json"]);
+    // Calvenne (tilt 62°): poles warmer than the equator over the year.
+    let t = json(&["climate", "calvenne", "--json"]);
     let tb = t["bands"].as_array().unwrap();
     assert!(tb[89]["mean_c"].as_f64().unwrap() > tb[45]["mean_c"].as_f64().unwrap());
 }
@@ -143,7 +143,7 @@ fn map_writes_png_and_csv() {
     for (world, q) in [
         ("verdance", "temperature"),
         ("oromar", "daylight"),
-        ("tessaly-reach", "insolation"),
+        ("calvenne", "insolation"),
     ] {
         let png = tmp(&format!("{world}-{q}.png"));
         let csv = tmp(&format!("{world}-{q}.csv"));
@@ -353,7 +353,7 @@ fn year_csv_names_daylight() {
 
 #[test]
 fn check_names_the_albedo_law_and_local_season_lengths() {
-    let v = json(&["check", "tessaly-reach", "--json"]);
+    let v = json(&["check", "calvenne", "--json"]);
     has(
         &v,
         &[
@@ -363,7 +363,7 @@ fn check_names_the_albedo_law_and_local_season_lengths() {
         ],
     );
     assert_eq!(v["albedo_law"], "sky", "{v}");
-    // Tessaly Reach: 290 standard days, 21 h solar day: a season in local days is the
+    // Calvenne: 290 standard days, 21 h solar day: a season in local days is the
     // standard-day length × 24/21 (arithmetic).
     let std0 = v["season_lengths_days"][0].as_f64().unwrap();
     let local0 = v["season_lengths_local_days"][0].as_f64().unwrap();
@@ -456,7 +456,7 @@ fn check_warns_when_the_latitude_term_contradicts_the_tilt() {
 
 #[test]
 fn climate_header_ice_summary_agrees_with_the_table() {
-    for world in ["verdance", "earth-reference", "oromar", "tessaly-reach"] {
+    for world in ["verdance", "earth-reference", "oromar", "calvenne"] {
         let v = json(&["climate", world, "--json"]);
         let bands = v["bands"].as_array().unwrap();
         for (north, key) in [(true, "north"), (false, "south")] {
@@ -547,7 +547,7 @@ fn calendar_proposes_and_writes_a_rule() {
     assert!(text.contains("not for navigation"), "{text}");
 
     let path = tmp("calendar-write.world.ron");
-    let original = include_str!("../../../assets/worlds/tessaly-reach.world.ron");
+    let original = include_str!("../../../assets/worlds/calvenne.world.ron");
     let bare = original
         .split("    // Calendar chosen")
         .next()

@@ -21,7 +21,7 @@ fn main() {
         .add_plugins(DefaultPlugins)
         .add_plugins(
             InsolaPlugins::new()
-                .with_world_file(support::world_asset_path("tessaly-reach"))
+                .with_world_file(support::world_asset_path("calvenne"))
                 // Four world days per real second: a year in a little over a minute.
                 .with_clock_rate(4.0 * 21.0 * 3600.0),
         )

@@ -3,7 +3,7 @@
 //!
 //! ```sh
 //! cargo run --release --example sky_scene                     # a window; keys below
-//! cargo run --release --example sky_scene -- --world tessaly-reach --lat 70
+//! cargo run --release --example sky_scene -- --world calvenne --lat 70
 //! cargo run --example sky_scene -- --out docs/images --at 100.5 --at 100.9   # PNGs, no window
 //! cargo run --example sky_scene --features tuning-panel -- --window-shot tuner.png
 //! ```

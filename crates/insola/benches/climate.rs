@@ -92,7 +92,7 @@ fn bench(c: &mut Criterion) {
     c.bench_function("climate/equilibrate_90_bands", |b| {
         b.iter(|| equilibrate(black_box(&spec), black_box(&forcing)).unwrap())
     });
-    for name in ["verdance", "tessaly-reach", "oromar"] {
+    for name in ["verdance", "calvenne", "oromar"] {
         let p = world(name);
         c.bench_function(&format!("climate/equilibrate_world_{name}"), |b| {
             b.iter(|| black_box(&p).equilibrate_climate().unwrap())
@@ -159,7 +159,7 @@ fn summary() {
         cycle.years_to_equilibrium(),
         eq / (1.0 / 60.0) * 100.0
     );
-    for name in ["verdance", "tessaly-reach", "oromar"] {
+    for name in ["verdance", "calvenne", "oromar"] {
         let p = world(name);
         let c = p.equilibrate_climate().unwrap();
         let t = median_s(21, || {

@@ -144,7 +144,7 @@ mod tests {
 
     #[test]
     fn batch_matches_single_queries_and_parallel_matches_serial_bit_for_bit() {
-        let text = include_str!("../../../assets/worlds/tessaly-reach.world.ron");
+        let text = include_str!("../../../assets/worlds/calvenne.world.ron");
         let p = Planet::new(&WorldSpec::from_ron_str(text).unwrap()).unwrap();
         let places: Vec<Place> = (0..10_000)
             .map(|k| {

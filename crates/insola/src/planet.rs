@@ -23,7 +23,7 @@ use crate::world::{BodySpec, WorldSpec, parse_utc_unix_s};
 /// ```
 /// use insola::{Planet, WorldSpec, Place};
 /// let spec = WorldSpec::from_ron_str(r#"(
-///     name: "Pellucid",
+///     name: "Ennavel",
 ///     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
 ///     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02,
 ///             periapsis_longitude_deg: 100, period_days: 300),

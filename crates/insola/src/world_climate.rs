@@ -196,7 +196,7 @@ mod tests {
 
     #[test]
     fn high_tilt_world_has_warm_poles() {
-        let p = planet("tessaly-reach.world.ron");
+        let p = planet("calvenne.world.ron");
         let c = p.equilibrate_climate().unwrap();
         let stats = c.band_stats();
         let equator = stats

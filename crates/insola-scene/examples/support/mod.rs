@@ -23,7 +23,7 @@ use clap::Parser;
 use insola::Planet;
 
 /// The worlds shipped in `assets/worlds/`, by short name.
-pub const WORLDS: [&str; 3] = ["verdance", "tessaly-reach", "oromar"];
+pub const WORLDS: [&str; 3] = ["verdance", "calvenne", "oromar"];
 
 /// Asset path of a shipped world (`"verdance"` → `"worlds/verdance.world.ron"`).
 pub fn world_asset_path(name: &str) -> String {
@@ -56,7 +56,7 @@ pub fn read_world(name_or_path: &str) -> Result<insola::WorldSpec, String> {
 #[derive(Parser, Debug, Clone)]
 #[command(about = "A small place on an invented world, lit by Insola")]
 pub struct SceneOptions {
-    /// World to start on: verdance, tessaly-reach or oromar.
+    /// World to start on: verdance, calvenne or oromar.
     #[arg(long, default_value = "verdance", value_parser = clap::builder::PossibleValuesParser::new(WORLDS))]
     pub world: String,
     /// Latitude of the place, degrees north (negative: south).

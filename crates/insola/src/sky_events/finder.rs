@@ -81,7 +81,7 @@ impl Planet {
     /// use insola::sky_events::{EventFilter, EventGroup, SkyEventKind};
     /// use insola::{Place, Planet, WorldSpec};
     /// let spec = WorldSpec::from_ron_str(r#"(
-    ///     name: "Pellucid",
+    ///     name: "Ennavel",
     ///     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
     ///     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02,
     ///             periapsis_longitude_deg: 100, period_days: 300),

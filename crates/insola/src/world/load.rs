@@ -19,14 +19,14 @@ impl WorldSpec {
     ///
     /// ```
     /// let text = r#"(
-    ///     name: "Pellucid",
+    ///     name: "Ennavel",
     ///     star: (temperature_k: 5600, radius_r_sun: 1.0, luminosity_l_sun: 1.0),
     ///     orbit: (semi_major_axis_au: 1.0, eccentricity: 0.02,
     ///             periapsis_longitude_deg: 100, period_days: 300),
     ///     spin: (obliquity_deg: 20, solar_day_hours: 22),
     /// )"#;
     /// let world = insola::WorldSpec::from_ron_str(text).unwrap();
-    /// assert_eq!(world.name, "Pellucid");
+    /// assert_eq!(world.name, "Ennavel");
     /// ```
     pub fn from_ron_str(text: &str) -> Result<WorldSpec, SpecError> {
         let spec = parse_with_path(text, "")?;
