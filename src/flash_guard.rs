@@ -29,9 +29,7 @@
 //! day lasts longer than the limit the displayed sky is the exact one, to the last bit.
 
 use bevy::color::LinearRgba;
-use bevy::math::DVec3;
 use bevy::prelude::*;
-use insola::lighting::LightingState;
 use insola::{Place, Planet};
 
 use crate::sky_state::SceneBody;
@@ -142,7 +140,8 @@ impl FlashGuard {
     }
 }
 
-/// The mean of the sky over `times` at `place`, as displayed (moons down).
+/// The mean of the sky over `times` at `place` (the core's [`Planet::mean_lighting`]), as
+/// displayed: moons down.
 fn mean_sky(
     planet: &Planet,
     place: Place,
@@ -150,79 +149,23 @@ fn mean_sky(
     times: impl Iterator<Item = f64>,
     hold: SkyHold,
 ) -> DisplayedSky {
-    let mode = settings.attenuation.light_mode();
-    let mut n = 0.0;
-    let mut star_h = 0.0; // mean star light on a horizontal surface, lux
-    let mut star_colour = DVec3::ZERO;
-    let mut cct = 0.0;
-    let mut sky_lux = 0.0;
-    let mut sky_colour = DVec3::ZERO;
-    let mut ground = 0.0;
-    let mut highest: Option<LightingState> = None;
-    for t in times {
-        let l = planet.lighting(t, place, mode);
-        n += 1.0;
-        let h = l.star.illuminance_lux * l.star.direction_enu.z.max(0.0);
-        star_h += h;
-        star_colour += DVec3::from(l.star.colour_linear_srgb) * h;
-        cct += l.star.cct_k * h;
-        sky_lux += l.sky.illuminance_lux;
-        sky_colour += DVec3::from(l.sky.colour_linear_srgb) * l.sky.illuminance_lux;
-        let moons_ground: f64 = l
-            .moons
-            .iter()
-            .map(|m| m.ground_illuminance_lux * m.light.direction_enu.z.max(0.0))
-            .sum();
-        ground += l.ground_horizontal_illuminance_lux - moons_ground;
-        if highest
-            .as_ref()
-            .is_none_or(|best| l.star.altitude_rad > best.star.altitude_rad)
-        {
-            highest = Some(l);
-        }
-    }
-    let Some(highest) = highest else {
+    let Some(mean) = planet.mean_lighting(place, settings.attenuation.light_mode(), times) else {
         return DisplayedSky::default();
     };
     let compass = &settings.compass;
-    let star_h = star_h / n;
-    let mut star = SceneBody::from_core(&highest.star, compass);
-    let up = highest.star.direction_enu.z;
-    // The star is shown where it stands highest, giving the day's mean light on the ground.
-    star.is_up = star_h > 0.0 && up > 0.0;
-    star.illuminance_lux = if star.is_up { star_h / up } else { 0.0 };
-    star.color = normalised(star_colour);
-    if star_h > 0.0 {
-        star.cct_k = cct / (star_h * n);
-    }
-    let moons = highest
-        .moons
-        .iter()
-        .map(|m| SceneBody {
-            is_up: false,
-            illuminance_lux: 0.0,
-            ..SceneBody::from_core(&m.light, compass)
-        })
-        .collect();
+    let [r, g, b] = mean.sky.colour_linear_srgb;
     DisplayedSky {
         ready: true,
         hold,
-        star,
-        moons,
-        sky_illuminance_lux: sky_lux / n,
-        sky_color: normalised(sky_colour),
-        horizontal_illuminance_lux: (ground / n).max(0.0),
-    }
-}
-
-/// A colour with its largest channel at 1 (white for black).
-fn normalised(c: DVec3) -> LinearRgba {
-    let m = c.max_element();
-    if m > 0.0 && m.is_finite() {
-        let c = c / m;
-        LinearRgba::rgb(c.x as f32, c.y as f32, c.z as f32)
-    } else {
-        LinearRgba::WHITE
+        star: SceneBody::from_core(&mean.star, compass),
+        moons: mean
+            .moons
+            .iter()
+            .map(|m| SceneBody::from_core(m, compass))
+            .collect(),
+        sky_illuminance_lux: mean.sky.illuminance_lux,
+        sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),
+        horizontal_illuminance_lux: mean.ground_horizontal_illuminance_lux,
     }
 }
 

@@ -6,7 +6,10 @@
 //! renderer), [`LightMode::TopOfAtmosphere`] the light above the air (for engines whose
 //! atmosphere attenuates the light itself, so extinction is never counted twice).
 
+mod mean;
 mod moon;
+
+pub use mean::MeanLighting;
 
 use glam::DVec3;
 use serde::{Deserialize, Serialize};
