@@ -8,13 +8,11 @@ use bevy::prelude::*;
 use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
 
-#[path = "../../crates/insola/tests/support/bad_world_corpus.rs"]
-mod bad_world_corpus;
-use bad_world_corpus::{Expected, bad_worlds, corpus_dir};
+use insola_test_support::bad_worlds::{Expected, corpus};
 
 #[test]
 fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_running() {
-    let files = bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), ""));
+    let files = corpus();
     assert!(files.len() >= 30, "the corpus has {} files", files.len());
     let dir = temp_dir("bad-corpus");
     std::fs::write(dir.join("live.world.ron"), BRINDLE).unwrap();

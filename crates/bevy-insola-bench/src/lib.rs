@@ -12,18 +12,18 @@ use bevy::time::TimeUpdateStrategy;
 use bevy_insola::prelude::*;
 use insola::WorldSpec;
 
-/// Verdance, the demo world: one star and two moons.
-pub const VERDANCE: &str = include_str!("../../../assets/worlds/verdance.world.ron");
-
 /// Real time per frame: 60 frames per second.
 pub const FRAME: Duration = Duration::from_micros(16_667);
 
 /// World seconds per real second in the measured apps: a minute of world time per second.
 pub const CLOCK_RATE: f64 = 60.0;
 
-/// The demo world's spec.
+/// The demo world Verdance (one star and two moons), from the core's list of shipped worlds.
 pub fn verdance() -> WorldSpec {
-    WorldSpec::from_ron_str(VERDANCE).expect("the demo world is valid")
+    insola::built_in_worlds::built_in_world("verdance")
+        .expect("Verdance ships with the core")
+        .spec()
+        .expect("the demo world is valid")
 }
 
 /// An app with MinimalPlugins and a manual 60 Hz clock, nothing else.

@@ -10,6 +10,7 @@ macro_rules! say {
     };
 }
 
+mod climate_setup;
 mod commands;
 mod worlds;
 

@@ -4,9 +4,7 @@
 use std::path::PathBuf;
 use std::process::{Command, Output};
 
-#[path = "../../insola/tests/support/bad_world_corpus.rs"]
-mod bad_world_corpus;
-use bad_world_corpus::{Expected, bad_worlds, corpus_dir};
+use insola_test_support::bad_worlds::{Expected, corpus};
 
 fn insola(args: &[&str]) -> Output {
     Command::new(env!("CARGO_BIN_EXE_insola"))
@@ -228,7 +226,7 @@ fn map_rejects_bad_arguments() {
 fn bad_world_files_exit_2_naming_the_field() {
     // The corpus of broken worlds in the core crate; the first line says what is expected.
     let mut n = 0;
-    for bad in bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), "../..")) {
+    for bad in corpus() {
         let err = fails_cleanly(&["check", bad.path.to_str().unwrap()]);
         let name = &bad.name;
         match &bad.expected {

@@ -126,8 +126,7 @@ fn colour_by_temperature(
 struct Worlds(Vec<Handle<WorldFile>>);
 
 fn load_worlds(mut commands: Commands, server: Res<AssetServer>) {
-    let handles = support::WORLDS
-        .iter()
+    let handles = support::world_names()
         .map(|name| server.load(support::world_asset_path(name)))
         .collect();
     commands.insert_resource(Worlds(handles));

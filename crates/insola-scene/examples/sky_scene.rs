@@ -613,8 +613,7 @@ fn rebuild_sundial(
 struct WorldFiles(Vec<Handle<WorldFile>>);
 
 fn load_all_worlds(mut commands: Commands, server: Res<AssetServer>) {
-    let handles = support::WORLDS
-        .iter()
+    let handles = support::world_names()
         .map(|name| server.load(support::world_asset_path(name)))
         .collect();
     commands.insert_resource(WorldFiles(handles));

@@ -2,6 +2,8 @@
 
 pub mod angle;
 pub mod batch;
+#[cfg(feature = "built-in-worlds")]
+pub mod built_in_worlds;
 pub mod calendar;
 pub mod calendar_design;
 pub mod climate;

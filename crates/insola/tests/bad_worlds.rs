@@ -5,13 +5,7 @@
 
 use insola::{SpecError, WorldSpec};
 
-#[path = "support/bad_world_corpus.rs"]
-mod bad_world_corpus;
-use bad_world_corpus::{BadWorld, Expected, bad_worlds, corpus_dir};
-
-fn corpus() -> Vec<BadWorld> {
-    bad_worlds(&corpus_dir(env!("CARGO_MANIFEST_DIR"), "../.."))
-}
+use insola_test_support::bad_worlds::{Expected, corpus};
 
 #[test]
 fn corpus_has_at_least_thirty_files() {

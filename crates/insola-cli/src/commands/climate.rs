@@ -9,7 +9,7 @@
 use std::io::IsTerminal;
 
 use insola::Planet;
-use insola::climate::{ClimateCycle, ClimateError, describe};
+use insola::climate::{ClimateCycle, describe};
 use serde::Serialize;
 
 /// Arguments of `insola climate`.
@@ -106,26 +106,6 @@ pub struct SweepRow {
     pub years_to_equilibrium: u32,
     /// Whether the year repeated within the tolerance.
     pub converged: bool,
-}
-
-/// Equilibrates, turning "not converged" into the last year plus a warning on stderr.
-pub fn cycle_of(p: &Planet) -> Result<ClimateCycle, String> {
-    match p.equilibrate_climate() {
-        Ok(c) => Ok(c),
-        Err(ClimateError::NotConverged {
-            years,
-            residual_k,
-            last,
-            ..
-        }) => {
-            eprintln!(
-                "insola: warning: {}: the climate did not settle into a repeating year after {years} model years (last change {residual_k:.3} K); showing the last year. The world may sit near an ice tipping point; try a larger climate.max_years.",
-                p.spec().name
-            );
-            Ok(*last)
-        }
-        Err(e) => Err(e.to_string()),
-    }
 }
 
 /// Per hemisphere, the band nearest the equator with any ice over the year, degrees.
@@ -240,7 +220,7 @@ fn sweep(args: &Args, p: &Planet, text: &str) -> Result<(), String> {
         let mut spec = p.spec().clone();
         spec.spin.obliquity_deg = tilt;
         let world = Planet::new(&spec).map_err(|e| format!("tilt {tilt}°: {e}"))?;
-        let c = bar.suspend(|| cycle_of(&world))?;
+        let c = bar.suspend(|| crate::climate_setup::cycle_of(&world))?;
         let means = c.band_stats().iter().map(|s| s.mean_c);
         rows.push(SweepRow {
             obliquity_deg: tilt,
@@ -297,7 +277,7 @@ pub fn run(args: Args) -> Result<(), String> {
     if let Some(text) = &args.sweep_obliquity {
         return sweep(&args, &p, text);
     }
-    let c = cycle_of(&p)?;
+    let c = crate::climate_setup::cycle_of(&p)?;
     let r = report(&p, &c);
     if args.json {
         return super::output::print_json(&r);

@@ -2,7 +2,7 @@
 
 use serde::Serialize;
 
-use crate::worlds::BUILT_IN;
+use insola::built_in_worlds::BUILT_IN_WORLDS;
 
 /// Arguments of `insola worlds`.
 #[derive(Debug, clap::Args)]
@@ -23,10 +23,10 @@ struct Entry {
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let mut entries = Vec::new();
-    for (name, text) in BUILT_IN {
-        let spec = insola::WorldSpec::from_ron_str(text).map_err(|e| e.to_string())?;
+    for world in BUILT_IN_WORLDS {
+        let spec = world.spec().map_err(|e| e.to_string())?;
         entries.push(Entry {
-            name: name.to_string(),
+            name: world.name.to_string(),
             title: spec.name,
             description: spec.description,
             reference: spec.reference,

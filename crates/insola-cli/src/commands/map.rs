@@ -146,7 +146,7 @@ pub fn sample(p: &Planet, q: Quantity, n_lat: usize, n_time: usize) -> Result<Fi
             }
         }
         Quantity::Temperature => {
-            let c = super::climate::cycle_of(p)?;
+            let c = crate::climate_setup::cycle_of(p)?;
             for (k, f) in fractions.iter().enumerate() {
                 for (i, &lat) in lats_rad.iter().enumerate() {
                     values[k * n_lat + i] = c.temperature_c(lat, *f);

@@ -22,8 +22,10 @@ use bevy_insola::{ActiveWorld, WorldFile};
 use clap::Parser;
 use insola::Planet;
 
-/// The worlds shipped in `assets/worlds/`, by short name.
-pub const WORLDS: [&str; 3] = ["verdance", "calvenne", "oromar"];
+/// The invented worlds shipped in `assets/worlds/`, by short name (the core's one list).
+pub fn world_names() -> impl Iterator<Item = &'static str> {
+    insola::built_in_worlds::invented_world_names()
+}
 
 /// Asset path of a shipped world (`"verdance"` → `"worlds/verdance.world.ron"`).
 pub fn world_asset_path(name: &str) -> String {
@@ -57,7 +59,7 @@ pub fn read_world(name_or_path: &str) -> Result<insola::WorldSpec, String> {
 #[command(about = "A small place on an invented world, lit by Insola")]
 pub struct SceneOptions {
     /// World to start on: verdance, calvenne or oromar.
-    #[arg(long, default_value = "verdance", value_parser = clap::builder::PossibleValuesParser::new(WORLDS))]
+    #[arg(long, default_value = "verdance", value_parser = clap::builder::PossibleValuesParser::new(world_names()))]
     pub world: String,
     /// Latitude of the place, degrees north (negative: south).
     #[arg(long, default_value_t = 40.0, allow_hyphen_values = true, value_parser = latitude)]
@@ -263,7 +265,8 @@ fn thin_shadow() -> TextShadow {
     }
 }
 
-/// The status line's text: world, date and time, star altitude, temperature, clock rate.
+/// The status line's text: world, date and time, season; then star altitude, twilight phase,
+/// temperature and clock rate on a second line.
 pub fn status_text(
     world: &ActiveWorld,
     sky: &SkyState,
@@ -305,9 +308,11 @@ pub fn status_text(
             planet.day_s() / clock.rate().abs().max(1e-9)
         )
     };
-    // Plain ASCII: Bevy's built-in font has no degree sign.
+    // Plain ASCII: Bevy's built-in font has no degree sign. Two lines, split where the reader's
+    // eye expects (where and when; then the sky), so that long twilight names never wrap
+    // mid-phrase on narrow views.
     format!(
-        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season} | star {alt:+.1} deg, {phase} | {temperature}{rate}",
+        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season}\nstar {alt:+.1} deg, {phase} | {temperature}{rate}",
         lat = settings.reference_latitude_deg.abs(),
         ns = if settings.reference_latitude_deg >= 0.0 {
             "N"

@@ -1,11 +1,9 @@
 //! The corpus of broken world files in `crates/insola/tests/bad-worlds/`, read the same way by
-//! the core's, the command's and the plugin's tests (each includes this file with `#[path]`).
+//! the core's, the command's and the plugin's tests.
 //!
 //! Every file starts with a comment saying which error it must give: `// expect:
 //! field:<dotted path>` for a validation error naming that field, `// expect: syntax` for a
 //! parse error with line and column, `// expect: unknown:<name>` for an unknown field.
-
-#![allow(dead_code, reason = "each test binary uses a different part")]
 
 use std::path::{Path, PathBuf};
 
@@ -33,12 +31,14 @@ pub struct BadWorld {
     pub text: String,
 }
 
-/// The corpus folder seen from a crate whose manifest is in `manifest_dir`, where
-/// `to_workspace` leads from it to the workspace root (`""`, `"../.."`).
-pub fn corpus_dir(manifest_dir: &str, to_workspace: &str) -> PathBuf {
-    Path::new(manifest_dir)
-        .join(to_workspace)
-        .join("crates/insola/tests/bad-worlds")
+/// The corpus folder (beside the core's tests, where new broken files are added).
+pub fn corpus_dir() -> PathBuf {
+    Path::new(env!("CARGO_MANIFEST_DIR")).join("../insola/tests/bad-worlds")
+}
+
+/// The whole corpus, sorted by file name.
+pub fn corpus() -> Vec<BadWorld> {
+    bad_worlds(&corpus_dir())
 }
 
 /// Every `*.world.ron` file of `dir`, sorted by name; panics on a file whose first line does

@@ -1,0 +1,25 @@
+//! The climate set-up every command shares: one equilibrium per world, with the same warning
+//! when the climate never settles.
+
+use insola::Planet;
+use insola::climate::{ClimateCycle, ClimateError};
+
+/// Equilibrates, turning "not converged" into the last year plus a warning on stderr.
+pub fn cycle_of(p: &Planet) -> Result<ClimateCycle, String> {
+    match p.equilibrate_climate() {
+        Ok(c) => Ok(c),
+        Err(ClimateError::NotConverged {
+            years,
+            residual_k,
+            last,
+            ..
+        }) => {
+            eprintln!(
+                "insola: warning: {}: the climate did not settle into a repeating year after {years} model years (last change {residual_k:.3} K); showing the last year. The world may sit near an ice tipping point; try a larger climate.max_years.",
+                p.spec().name
+            );
+            Ok(*last)
+        }
+        Err(e) => Err(e.to_string()),
+    }
+}
