@@ -83,7 +83,7 @@ fn main() -> AppExit {
         app.add_plugins(DefaultPlugins.set(WindowPlugin {
             primary_window: Some(Window {
                 title: "Insola — sky scene".into(),
-                resolution: (1280, 720).into(),
+                resolution: options.window_size.into(),
                 ..default()
             }),
             ..default()

@@ -54,6 +54,23 @@ pub fn read_world(name_or_path: &str) -> Result<insola::WorldSpec, String> {
     Ok(spec)
 }
 
+/// Reads `WIDTHxHEIGHT` (each 64 to 8192 pixels).
+fn parse_window_size(text: &str) -> Result<(u32, u32), String> {
+    let (w, h) = text
+        .split_once('x')
+        .ok_or_else(|| format!("`{text}`: expected WIDTHxHEIGHT, e.g. 1280x900"))?;
+    let side = |s: &str| {
+        s.trim()
+            .parse::<u32>()
+            .ok()
+            .filter(|v| (64..=8192).contains(v))
+            .ok_or_else(|| {
+                format!("`{s}`: a window side is a whole number of pixels from 64 to 8192")
+            })
+    };
+    Ok((side(w)?, side(h)?))
+}
+
 /// Options of the rendering examples.
 #[derive(Parser, Debug, Clone)]
 #[command(about = "A small place on an invented world, lit by Insola")]
@@ -86,6 +103,10 @@ pub struct SceneOptions {
     /// Picture height in pixels (headless).
     #[arg(long, default_value_t = 180)]
     pub height: u32,
+    /// Window size in pixels, `WIDTHxHEIGHT` (with a window; the tuner's plots need about 900
+    /// pixels of height to show whole).
+    #[arg(long, default_value = "1280x720", value_parser = parse_window_size)]
+    pub window_size: (u32, u32),
     /// Direction the camera faces: degrees clockwise from north, or `star` to face the star.
     #[arg(long, default_value = "0")]
     pub look: String,
