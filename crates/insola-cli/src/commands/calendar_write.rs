@@ -130,7 +130,7 @@ fn section_for(
                     design.tropical_year_days
                 ),
                 format!(
-                    "Months begin on day {} (the day nearest a new moon of {}); name them with month_names.",
+                    "Months begin on day {}, the midnight nearest half a day after a mean new moon of {}; name them with month_names.",
                     months.first_month_day, schemes.moon
                 ),
             ];

@@ -28,24 +28,21 @@ pub fn best_lunar_index(list: &[LunarProposal]) -> Option<usize> {
 }
 
 impl Planet {
-    /// World time of moon `moon`'s last new moon at or before `t_s` (searched over the two
-    /// synodic months before it), seconds; `None` for a bad index or no new moon found.
-    pub fn last_new_moon_at_or_before(&self, moon: usize, t_s: f64) -> Option<f64> {
-        let orbit = self.moon_orbits().get(moon)?;
-        let synodic = crate::moons::synodic_period_s(orbit.period_s, self.tropical_year_s());
-        if !synodic.is_finite() || !t_s.is_finite() {
-            return None;
+    /// Moon `moon`'s new moons in `[from_s, to_s]`, world times in seconds; empty for a bad
+    /// index or bad times.
+    pub fn new_moons_between(&self, moon: usize, from_s: f64, to_s: f64) -> Vec<f64> {
+        if moon >= self.moon_orbits().len() || !(from_s.is_finite() && to_s.is_finite()) {
+            return Vec::new();
         }
         let filter = EventFilter::only([EventGroup::MoonPhase]).with_moons([moon]);
-        let place = Place::from_degrees(0.0, 0.0).ok()?;
-        let from = t_s - 2.0 * synodic;
-        let events = self
-            .sky_events_between(place, from, t_s + 1.0e-3, &filter)
-            .ok()?;
-        events
-            .iter()
+        let Ok(place) = Place::from_degrees(0.0, 0.0) else {
+            return Vec::new();
+        };
+        self.sky_events_between(place, from_s, to_s + 1.0e-3, &filter)
+            .unwrap_or_default()
+            .into_iter()
             .filter(|e| {
-                e.at_s <= t_s
+                e.at_s <= to_s
                     && matches!(
                         e.kind,
                         SkyEventKind::MoonPhase {
@@ -55,16 +52,45 @@ impl Planet {
                     )
             })
             .map(|e| e.at_s)
-            .next_back()
+            .collect()
     }
 
-    /// The calendar day number nearest moon `moon`'s last new moon at or before the first
-    /// calendar day's start (0 when none is found): months counted from there begin within
-    /// about a day of a new moon.
+    /// World time of moon `moon`'s last **mean** new moon at or before `t_s`, seconds: the
+    /// new moons of the year before `t_s`, each moved by whole synodic months onto the last,
+    /// averaged. The moon's and the planet's eccentric orbits move single new moons by hours
+    /// or more; over a year their swings mostly cancel. `None` for a bad index or no new moon.
+    pub fn mean_new_moon_at_or_before(&self, moon: usize, t_s: f64) -> Option<f64> {
+        let orbit = self.moon_orbits().get(moon)?;
+        let synodic = crate::moons::synodic_period_s(orbit.period_s, self.tropical_year_s());
+        if !synodic.is_finite() {
+            return None;
+        }
+        let span = self.tropical_year_s().max(2.0 * synodic);
+        let news = self.new_moons_between(moon, t_s - span, t_s);
+        let last = *news.last()?;
+        let mean = news
+            .iter()
+            .map(|&t| {
+                let months = ((last - t) / synodic).round();
+                t + months * synodic - last
+            })
+            .sum::<f64>()
+            / news.len() as f64;
+        let mut at = last + mean;
+        while at > t_s {
+            at -= synodic;
+        }
+        Some(at)
+    }
+
+    /// The calendar day number whose first midnight lies nearest half a day after moon
+    /// `moon`'s last mean new moon at or before the first calendar day's start (0 when none is
+    /// found). The month rule's `⌊m·L/C⌋` starts months up to a day before the mean new
+    /// moon; half a day later centres the new moons on the months' first midnights.
     pub fn new_moon_day(&self, moon: usize) -> i64 {
         let epoch = self.calendar_day_start_s(0);
-        self.last_new_moon_at_or_before(moon, epoch)
-            .map_or(0, |t| ((t - epoch) / self.day_s()).round() as i64)
+        self.mean_new_moon_at_or_before(moon, epoch)
+            .map_or(0, |t| ((t - epoch) / self.day_s() + 0.5).round() as i64)
     }
 
     /// The `moon_months` entry of a lunar calendar (with `lunisolar` `None`: years of
