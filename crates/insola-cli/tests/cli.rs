@@ -347,6 +347,10 @@ fn year_csv_names_daylight() {
         header.contains("daylight_h") && !header.contains("day_length"),
         "{header}"
     );
+    // Each row carries the calendar date.
+    assert!(header.starts_with("day,date,"), "{header}");
+    let first = text.lines().nth(1).unwrap();
+    assert!(first.starts_with("0,1/Thawing/1,"), "{first}");
 }
 
 #[test]
@@ -575,6 +579,69 @@ fn calendar_proposes_and_writes_a_rule() {
     assert_eq!(again.matches("calendar: (").count(), 1, "{again}");
     fails_cleanly(&["calendar", p, "--write", "99"]);
     fails_cleanly(&["calendar", "verdance", "--write"]);
+}
+
+#[test]
+fn calendar_writes_lunar_and_lunisolar_schemes() {
+    let path = tmp("calendar-moon.world.ron");
+    let original = include_str!("../../../assets/worlds/verdance.world.ron");
+    std::fs::write(&path, original).unwrap();
+    let p = path.to_str().unwrap();
+    let v = json(&["calendar", p, "--json"]);
+    let choices = v["choices"].as_array().unwrap();
+    let number = |kind: &str, pick: &dyn Fn(&serde_json::Value) -> bool| {
+        let list = if kind == "lunar" { "lunar" } else { "lunisolar" };
+        1 + choices
+            .iter()
+            .position(|c| {
+                c["kind"] == kind
+                    && c["moon"] == 0
+                    && pick(&v["design"]["moons"][0][list][c["index"].as_u64().unwrap() as usize])
+            })
+            .unwrap()
+    };
+    // Ossel: 219 months in 16 years, 11 of them with a 14th month.
+    let n = number("lunisolar", &|s| s["years"] == 16 && s["months"] == 219);
+    let out = insola(&["calendar", p, "--write", &n.to_string()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let written = std::fs::read_to_string(&path).unwrap();
+    assert!(
+        written.contains("moon_months: (") && written.contains("intercalary: (leap_years: 11, cycle_years: 16)"),
+        "{written}"
+    );
+    let after = json(&["calendar", p, "--json"]);
+    assert!(
+        after["leap_rule"].as_str().unwrap().starts_with("lunisolar"),
+        "{after}"
+    );
+    // Dates follow the months: year 1 has 13 months, year 2 (a leap year) 14.
+    let d = json(&["sky", p, "--lat", "10", "--date", "2/14/3T06:00", "--json"]);
+    assert_eq!(d["date"]["month"], 13);
+    assert_eq!(d["date"]["day_of_month"], 3);
+    let err = fails_cleanly(&["sky", p, "--lat", "10", "--date", "1/14/1"]);
+    assert!(err.contains("13 months"), "{err}");
+    let err = fails_cleanly(&["sky", p, "--lat", "10", "--date", "1/1/29"]);
+    assert!(err.contains("days"), "{err}");
+    let check = String::from_utf8(insola(&["check", p]).stdout).unwrap();
+    assert!(check.contains("follow Ossel's phases"), "{check}");
+    // A lunar scheme replaces it: years of whole months, no intercalary rule.
+    let n = number("lunar", &|s| s["cycle_months"] == 162);
+    assert!(insola(&["calendar", p, "--write", &n.to_string()]).status.success());
+    let lunar = std::fs::read_to_string(&path).unwrap();
+    assert_eq!(lunar.matches("calendar: (").count(), 1, "{lunar}");
+    assert!(
+        lunar.contains("long_months: 127") && !lunar.contains("intercalary"),
+        "{lunar}"
+    );
+    // And a leap rule brings back a solar calendar.
+    assert!(insola(&["calendar", p, "--write"]).status.success());
+    let solar = std::fs::read_to_string(&path).unwrap();
+    assert!(!solar.contains("moon_months"), "{solar}");
+    assert!(solar.contains("leap: (leap_years: 4, cycle_years: 13)"), "{solar}");
 }
 
 #[test]
