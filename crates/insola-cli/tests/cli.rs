@@ -590,7 +590,11 @@ fn calendar_writes_lunar_and_lunisolar_schemes() {
     let v = json(&["calendar", p, "--json"]);
     let choices = v["choices"].as_array().unwrap();
     let number = |kind: &str, pick: &dyn Fn(&serde_json::Value) -> bool| {
-        let list = if kind == "lunar" { "lunar" } else { "lunisolar" };
+        let list = if kind == "lunar" {
+            "lunar"
+        } else {
+            "lunisolar"
+        };
         1 + choices
             .iter()
             .position(|c| {
@@ -610,12 +614,16 @@ fn calendar_writes_lunar_and_lunisolar_schemes() {
     );
     let written = std::fs::read_to_string(&path).unwrap();
     assert!(
-        written.contains("moon_months: (") && written.contains("intercalary: (leap_years: 11, cycle_years: 16)"),
+        written.contains("moon_months: (")
+            && written.contains("intercalary: (leap_years: 11, cycle_years: 16)"),
         "{written}"
     );
     let after = json(&["calendar", p, "--json"]);
     assert!(
-        after["leap_rule"].as_str().unwrap().starts_with("lunisolar"),
+        after["leap_rule"]
+            .as_str()
+            .unwrap()
+            .starts_with("lunisolar"),
         "{after}"
     );
     // Dates follow the months: year 1 has 13 months, year 2 (a leap year) 14.
@@ -630,7 +638,11 @@ fn calendar_writes_lunar_and_lunisolar_schemes() {
     assert!(check.contains("follow Ossel's phases"), "{check}");
     // A lunar scheme replaces it: years of whole months, no intercalary rule.
     let n = number("lunar", &|s| s["cycle_months"] == 162);
-    assert!(insola(&["calendar", p, "--write", &n.to_string()]).status.success());
+    assert!(
+        insola(&["calendar", p, "--write", &n.to_string()])
+            .status
+            .success()
+    );
     let lunar = std::fs::read_to_string(&path).unwrap();
     assert_eq!(lunar.matches("calendar: (").count(), 1, "{lunar}");
     assert!(
@@ -641,7 +653,10 @@ fn calendar_writes_lunar_and_lunisolar_schemes() {
     assert!(insola(&["calendar", p, "--write"]).status.success());
     let solar = std::fs::read_to_string(&path).unwrap();
     assert!(!solar.contains("moon_months"), "{solar}");
-    assert!(solar.contains("leap: (leap_years: 4, cycle_years: 13)"), "{solar}");
+    assert!(
+        solar.contains("leap: (leap_years: 4, cycle_years: 13)"),
+        "{solar}"
+    );
 }
 
 #[test]

@@ -90,7 +90,10 @@ fn days_and_years_start_at_local_midnight() {
             Some(m) => f64::from(m.short_month_days + 1),
             None => 1.0,
         };
-        assert!(epoch <= 0.0 && epoch > -before * p.day_s(), "{name}: {epoch}");
+        assert!(
+            epoch <= 0.0 && epoch > -before * p.day_s(),
+            "{name}: {epoch}"
+        );
         for year in (first - 10_000..first + 10_000).step_by(97) {
             let start = p.year_start_s(year);
             // Local mean time at the prime meridian is midnight (fraction 0, or a hair under 1).

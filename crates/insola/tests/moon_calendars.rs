@@ -98,7 +98,10 @@ fn months_begin_at_new_moons() {
             if offset > 0.5 * f64::from(month_days) {
                 offset -= f64::from(month_days);
             }
-            assert!(offset.abs() < 1.75, "{name}: new moon {offset:.2} days from {d:?}");
+            assert!(
+                offset.abs() < 1.75,
+                "{name}: new moon {offset:.2} days from {d:?}"
+            );
         }
     }
 }
@@ -111,7 +114,10 @@ fn earth_proposal_keeps_metons_cycle() {
     // 29.53068 d).
     let p = earth_metonic();
     let m = p.calendar().moon_months.clone().unwrap();
-    assert_eq!((m.year_months, m.intercalary.clone().unwrap().leap_years), (12, 7));
+    assert_eq!(
+        (m.year_months, m.intercalary.clone().unwrap().leap_years),
+        (12, 7)
+    );
     let first = p.calendar().first_year;
     let months: usize = (first..first + 19)
         .map(|y| p.calendar().month_lengths(y).len())
@@ -120,7 +126,10 @@ fn earth_proposal_keeps_metons_cycle() {
     assert!((m.mean_month_days() - 29.530589).abs() * 1440.0 < 1.0);
     for y in first..first + 19 {
         let days = p.year_days(y);
-        assert!((353..=355).contains(&days) || (383..=385).contains(&days), "{y}: {days}");
+        assert!(
+            (353..=355).contains(&days) || (383..=385).contains(&days),
+            "{y}: {days}"
+        );
     }
 }
 
@@ -160,7 +169,10 @@ fn bad_dates_are_typed_errors() {
     let leap = (1..40).find(|&y| cal.month_lengths(y).len() == 14).unwrap();
     assert!(matches!(
         p.time_of_date_text(&format!("{common}/14/1")),
-        Err(CalendarError::MonthOutOfYear { year_months: 13, .. })
+        Err(CalendarError::MonthOutOfYear {
+            year_months: 13,
+            ..
+        })
     ));
     assert!(p.time_of_date_text(&format!("{leap}/14/1")).is_ok());
     assert!(matches!(
@@ -231,4 +243,3 @@ fn bad_moon_month_sections_name_their_field() {
         Some("calendar.moon_months.short_month_days")
     );
 }
-

@@ -195,7 +195,11 @@ pub fn run(args: Args) -> Result<(), String> {
         for (index, l) in m.lunar.iter().enumerate() {
             say!(
                 "{}{:>3} lunar      months of {} and {} days, {} long in {}: mean {:.5} d, drift {:+.2} d per 1000 years against the phases",
-                if m.best_lunar == Some(index) { "+" } else { " " },
+                if m.best_lunar == Some(index) {
+                    "+"
+                } else {
+                    " "
+                },
                 number_of(d, Choice::Lunar { moon, index }),
                 l.short_month_days,
                 l.short_month_days + 1,

@@ -57,7 +57,11 @@ mod tests {
 
     #[test]
     fn every_day_lies_in_the_month_that_holds_it() {
-        for spec in [months(29, 1, 2, 0), months(29, 191, 360, -7), months(5, 0, 1, 3)] {
+        for spec in [
+            months(29, 1, 2, 0),
+            months(29, 191, 360, -7),
+            months(5, 0, 1, 3),
+        ] {
             for day in -5000i128..5000 {
                 let m = spec.month_of_day(day);
                 assert!(spec.month_start_day(m) <= day, "{spec:?} {day}");

@@ -105,7 +105,9 @@ impl MoonMonthsSpec {
     /// `true` if some year has a month called `name` (the intercalary month included).
     pub fn has_month_named(&self, name: &str) -> bool {
         let name = name.trim();
-        self.month_names.iter().any(|m| m.eq_ignore_ascii_case(name))
+        self.month_names
+            .iter()
+            .any(|m| m.eq_ignore_ascii_case(name))
             || (self.intercalary.is_some()
                 && !self.month_names.is_empty()
                 && self.intercalary_name().eq_ignore_ascii_case(name))
