@@ -245,23 +245,25 @@ mod tests {
             .iter()
             .find(|w| w.name == "verdance")
             .unwrap();
-        let mut spec = CalendarSpec::default();
-        spec.moon_months = Some(MoonMonthsSpec {
-            moon: "Ossel".into(),
-            short_month_days: 27,
-            long_months: 11,
-            cycle_months: 14,
-            first_month_day: -3,
-            year_months: 13,
-            intercalary: Some(LeapRule {
-                leap_years: 11,
-                cycle_years: 16,
-                exceptions: vec![],
+        let spec = CalendarSpec {
+            moon_months: Some(MoonMonthsSpec {
+                moon: "Ossel".into(),
+                short_month_days: 27,
+                long_months: 11,
+                cycle_months: 14,
+                first_month_day: -3,
+                year_months: 13,
+                intercalary: Some(LeapRule {
+                    leap_years: 11,
+                    cycle_years: 16,
+                    exceptions: vec![],
+                }),
+                month_names: (1..=13).map(|i| format!("Moon{i}x")).collect(),
+                intercalary_month: Some("Deepmoon".into()),
+                intercalary_after: Some("Moon6x".into()),
             }),
-            month_names: (1..=13).map(|i| format!("Moon{i}x")).collect(),
-            intercalary_month: Some("Deepmoon".into()),
-            intercalary_after: Some("Moon6x".into()),
-        });
+            ..CalendarSpec::default()
+        };
         let text = with_section(world.ron, &section_text(&spec, &["Calendar x".into()])).unwrap();
         let back = insola::WorldSpec::from_ron_str(&text).unwrap();
         assert_eq!(back.calendar, Some(spec));
