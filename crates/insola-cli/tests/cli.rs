@@ -660,6 +660,43 @@ fn calendar_writes_lunar_and_lunisolar_schemes() {
 }
 
 #[test]
+fn check_and_calendar_print_season_dates_and_their_wander() {
+    // Earth (validation reference): year 1 of its calendar starts at 2000-01-01 00:00 UT. The
+    // seasons of 2000 fell on 20 March 07:35, 21 June 01:48, 22 September 17:27 and
+    // 21 December 13:37 UT (USNO, "Earth's Seasons: Equinoxes, Solstices, Perihelion, and
+    // Aphelion, 2000–2025"; from memory): days 80, 173, 266 and 356 of that leap year.
+    let v = json(&["check", "earth-reference", "--json"]);
+    let seasons = v["season_dates"].as_array().unwrap();
+    let expected = [(80, 7.58), (173, 1.80), (266, 17.45), (356, 13.62)];
+    for (s, (day, hour)) in seasons.iter().zip(expected) {
+        assert_eq!(s["date"]["year"], 1, "{s}");
+        assert_eq!(s["date"]["day_of_year"].as_u64().unwrap() + 1, day, "{s}");
+        let h = s["date"]["hour_of_day"].as_f64().unwrap();
+        // The model's Keplerian orbit (no perturbations) lands within half an hour.
+        assert!((h - hour).abs() < 0.5, "{s}: {h} h");
+    }
+    // Over the 4-in-13 rule's period the dates move by under a day on Verdance.
+    let text = String::from_utf8(insola(&["check", "verdance"]).stdout).unwrap();
+    assert!(
+        text.contains("northward equinox") && text.contains("cycle of 13 years"),
+        "{text}"
+    );
+    let v = json(&["calendar", "verdance", "--year", "5", "--json"]);
+    assert!(
+        v["seasons"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .all(|s| s["date"]["year"] == 5)
+    );
+    for w in v["wander"].as_array().unwrap() {
+        let span =
+            w["latest_day_of_year"].as_f64().unwrap() - w["earliest_day_of_year"].as_f64().unwrap();
+        assert!(span < 1.0 && w["over_years"] == 13, "{w}");
+    }
+}
+
+#[test]
 fn times_can_be_calendar_dates() {
     let v = json(&[
         "sky",

@@ -4,7 +4,8 @@
 use super::calendar_write::{Choice, choices, number_of};
 use insola::Planet;
 use insola::calendar_design::{
-    CalendarDesign, SeasonDate, SeasonWander, SolarFamily, SolarProposal,
+    CalendarDesign, LunarProposal, LunisolarProposal, SeasonDate, SeasonWander, SolarFamily,
+    SolarProposal,
 };
 use serde::Serialize;
 
@@ -194,7 +195,7 @@ pub fn run(args: Args) -> Result<(), String> {
         );
         for (index, l) in m.lunar.iter().enumerate() {
             say!(
-                "{}{:>3} lunar      months of {} and {} days, {} long in {}: mean {:.5} d, drift {:+.2} d per 1000 years against the phases",
+                "{}{:>3} lunar      months of {} and {} days, {} long in {}: mean {:.5} d, drift {:+.2} d per 1000 years against the phases{}",
                 if m.best_lunar == Some(index) {
                     "+"
                 } else {
@@ -206,12 +207,13 @@ pub fn run(args: Args) -> Result<(), String> {
                 l.long_months,
                 l.cycle_months,
                 l.mean_month_days,
-                l.drift_days_per_1000_years
+                l.drift_days_per_1000_years,
+                in_use(lunar_in_use(&p, &m.moon, l))
             );
         }
         for (index, s) in m.lunisolar.iter().enumerate() {
             say!(
-                " {:>3} lunisolar  {} months in {} ({} of {} months, {} of {}): mean year {:.4} d, drift {:+.1} d per 1000 years against the seasons",
+                " {:>3} lunisolar  {} months in {} ({} of {} months, {} of {}): mean year {:.4} d, drift {:+.1} d per 1000 years against the seasons{}",
                 number_of(d, Choice::Lunisolar { moon, index }),
                 s.months,
                 years(s.years),
@@ -220,7 +222,8 @@ pub fn run(args: Args) -> Result<(), String> {
                 s.leap_years,
                 s.common_year_months + 1,
                 s.mean_year_days,
-                s.drift_days_per_1000_years
+                s.drift_days_per_1000_years,
+                in_use(lunisolar_in_use(&p, &m.moon, s))
             );
         }
     }
@@ -230,6 +233,36 @@ pub fn run(args: Args) -> Result<(), String> {
         say!("{line}");
     }
     Ok(())
+}
+
+/// `  (in use)` when `used`.
+fn in_use(used: bool) -> &'static str {
+    if used { "  (in use)" } else { "" }
+}
+
+/// `true` when the world's calendar counts months of `moon` by the month rule of `l` in years
+/// of a fixed number of months.
+fn lunar_in_use(p: &Planet, moon: &str, l: &LunarProposal) -> bool {
+    p.calendar().moon_months.as_ref().is_some_and(|m| {
+        m.moon == moon
+            && m.intercalary.is_none()
+            && m.short_month_days == l.short_month_days
+            && u64::from(m.long_months) == l.long_months
+            && u64::from(m.cycle_months) == l.cycle_months
+    })
+}
+
+/// `true` when the world's calendar counts months of `moon` in the years of cycle `s`.
+fn lunisolar_in_use(p: &Planet, moon: &str, s: &LunisolarProposal) -> bool {
+    p.calendar().moon_months.as_ref().is_some_and(|m| {
+        m.moon == moon
+            && u64::from(m.year_months) == s.common_year_months
+            && m.intercalary.as_ref().is_some_and(|r| {
+                r.exceptions.is_empty()
+                    && u64::from(r.leap_years) == s.leap_years
+                    && u64::from(r.cycle_years) == s.years
+            })
+    })
 }
 
 /// `1 year`, `19 years`.

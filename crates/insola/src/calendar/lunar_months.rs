@@ -6,17 +6,23 @@ use crate::world::MoonMonthsSpec;
 
 impl MoonMonthsSpec {
     /// Days of one cycle of `cycle_months` months.
+    /// (At least 1, so that a section built without validation cannot divide by zero.)
     fn cycle_days(&self) -> i128 {
-        i128::from(self.short_month_days) * i128::from(self.cycle_months)
-            + i128::from(self.long_months)
+        (i128::from(self.short_month_days) * i128::from(self.cycle_months)
+            + i128::from(self.long_months))
+        .max(1)
+    }
+
+    /// Months per cycle, at least 1.
+    fn cycle(&self) -> i128 {
+        i128::from(self.cycle_months.max(1))
     }
 
     /// Day number on which month number `m` begins (month 0 is the first month of the first
     /// year; negative numbers count back): `first_month_day + ⌊m·P/C⌋` with `P` the days of
     /// a cycle of `C` months, which is `m·short + ⌊m·L/C⌋`.
     pub fn month_start_day(&self, m: i128) -> i128 {
-        i128::from(self.first_month_day)
-            + floor_div(m * self.cycle_days(), i128::from(self.cycle_months))
+        i128::from(self.first_month_day) + floor_div(m * self.cycle_days(), self.cycle())
     }
 
     /// Days of month number `m`: `short_month_days`, or one more for a long month.
@@ -29,10 +35,7 @@ impl MoonMonthsSpec {
     /// `⌊((x + 1)·C − 1) / P⌋`.
     pub fn month_of_day(&self, day: i128) -> i128 {
         let x = day - i128::from(self.first_month_day);
-        floor_div(
-            (x + 1) * i128::from(self.cycle_months) - 1,
-            self.cycle_days(),
-        )
+        floor_div((x + 1) * self.cycle() - 1, self.cycle_days())
     }
 }
 

@@ -6,14 +6,23 @@ use crate::world::{LeapRule, MoonMonthsSpec};
 
 impl MoonMonthsSpec {
     /// The rule of years with one month more (no such years in a lunar calendar).
+    /// (A rule that would divide by zero, possible only without validation, counts as none.)
     pub fn intercalary_rule(&self) -> LeapRule {
-        self.intercalary.clone().unwrap_or(LeapRule::NONE)
+        match &self.intercalary {
+            Some(r) if r.cycle_years > 0 && !r.exceptions.contains(&0) => r.clone(),
+            _ => LeapRule::NONE,
+        }
+    }
+
+    /// Months of a common year, at least 1.
+    fn common_months(&self) -> i128 {
+        i128::from(self.year_months.max(1))
     }
 
     /// Month number (see [`MoonMonthsSpec::month_start_day`]) of the first month of year
     /// index `k` (0 for the first year): `k·year_months` plus the intercalary months before.
     pub fn first_month_of_year(&self, k: i64) -> i128 {
-        i128::from(k) * i128::from(self.year_months) + self.intercalary_rule().leaps_before(k)
+        i128::from(k) * self.common_months() + self.intercalary_rule().leaps_before(k)
     }
 
     /// Months in year index `k`.
@@ -28,7 +37,7 @@ impl MoonMonthsSpec {
 
     /// Mean months per year.
     pub fn mean_year_months(&self) -> f64 {
-        f64::from(self.year_months) + self.intercalary_rule().mean_leap_fraction()
+        f64::from(self.year_months.max(1)) + self.intercalary_rule().mean_leap_fraction()
     }
 
     /// Mean year, days.
@@ -64,7 +73,7 @@ impl MoonMonthsSpec {
         }
         let fewest = i128::from(self.year_months) * i128::from(self.short_month_days)
             + i128::from(self.year_months) * i128::from(self.long_months)
-                / i128::from(self.cycle_months);
+                / i128::from(self.cycle_months.max(1));
         self.year_start_day(k + 1) - self.year_start_day(k) > fewest
     }
 

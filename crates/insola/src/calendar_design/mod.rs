@@ -114,9 +114,9 @@ impl Planet {
             });
         }
         let cal = self.calendar();
-        let current = solar
-            .iter()
-            .position(|p| p.year_days == cal.common_year_days && p.leap == cal.leap);
+        let current = solar.iter().position(|p| {
+            cal.moon_months.is_none() && p.year_days == cal.common_year_days && p.leap == cal.leap
+        });
         let day_s = self.day_s();
         let moons = self
             .moon_orbits()
