@@ -31,11 +31,11 @@ fn lunisolar() -> Planet {
 /// Earth (validation reference) with the designer's lunisolar proposal of 235 months in 19
 /// years, months by its best month rule.
 fn earth_metonic() -> Planet {
-    let earth = insola::built_in_worlds::BUILT_IN_WORLDS
-        .iter()
-        .find(|w| w.name == "earth-reference")
-        .unwrap();
-    let p = Planet::new(&earth.spec().unwrap()).unwrap();
+    let path = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/../../assets/reference-worlds/earth.world.ron"
+    );
+    let p = Planet::new(&WorldSpec::from_path(path).unwrap()).unwrap();
     let design = p.design_calendar().unwrap();
     let moon = &design.moons[0];
     let metonic = moon
