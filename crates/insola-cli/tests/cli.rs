@@ -347,6 +347,10 @@ fn year_csv_names_daylight() {
         header.contains("daylight_h") && !header.contains("day_length"),
         "{header}"
     );
+    // Each row carries the calendar date.
+    assert!(header.starts_with("day,date,"), "{header}");
+    let first = text.lines().nth(1).unwrap();
+    assert!(first.starts_with("0,1/Thawing/1,"), "{first}");
 }
 
 #[test]
@@ -575,6 +579,121 @@ fn calendar_proposes_and_writes_a_rule() {
     assert_eq!(again.matches("calendar: (").count(), 1, "{again}");
     fails_cleanly(&["calendar", p, "--write", "99"]);
     fails_cleanly(&["calendar", "verdance", "--write"]);
+}
+
+#[test]
+fn calendar_writes_lunar_and_lunisolar_schemes() {
+    let path = tmp("calendar-moon.world.ron");
+    let original = include_str!("../../../assets/worlds/verdance.world.ron");
+    std::fs::write(&path, original).unwrap();
+    let p = path.to_str().unwrap();
+    let v = json(&["calendar", p, "--json"]);
+    let choices = v["choices"].as_array().unwrap();
+    let number = |kind: &str, pick: &dyn Fn(&serde_json::Value) -> bool| {
+        let list = if kind == "lunar" {
+            "lunar"
+        } else {
+            "lunisolar"
+        };
+        1 + choices
+            .iter()
+            .position(|c| {
+                c["kind"] == kind
+                    && c["moon"] == 0
+                    && pick(&v["design"]["moons"][0][list][c["index"].as_u64().unwrap() as usize])
+            })
+            .unwrap()
+    };
+    // Ossel: 219 months in 16 years, 11 of them with a 14th month.
+    let n = number("lunisolar", &|s| s["years"] == 16 && s["months"] == 219);
+    let out = insola(&["calendar", p, "--write", &n.to_string()]);
+    assert!(
+        out.status.success(),
+        "{}",
+        String::from_utf8_lossy(&out.stderr)
+    );
+    let written = std::fs::read_to_string(&path).unwrap();
+    assert!(
+        written.contains("moon_months: (")
+            && written.contains("intercalary: (leap_years: 11, cycle_years: 16)"),
+        "{written}"
+    );
+    let after = json(&["calendar", p, "--json"]);
+    assert!(
+        after["leap_rule"]
+            .as_str()
+            .unwrap()
+            .starts_with("lunisolar"),
+        "{after}"
+    );
+    // Dates follow the months: year 1 has 13 months, year 2 (a leap year) 14.
+    let d = json(&["sky", p, "--lat", "10", "--date", "2/14/3T06:00", "--json"]);
+    assert_eq!(d["date"]["month"], 13);
+    assert_eq!(d["date"]["day_of_month"], 3);
+    let err = fails_cleanly(&["sky", p, "--lat", "10", "--date", "1/14/1"]);
+    assert!(err.contains("13 months"), "{err}");
+    let err = fails_cleanly(&["sky", p, "--lat", "10", "--date", "1/1/29"]);
+    assert!(err.contains("days"), "{err}");
+    let check = String::from_utf8(insola(&["check", p]).stdout).unwrap();
+    assert!(check.contains("follow Ossel's phases"), "{check}");
+    // A lunar scheme replaces it: years of whole months, no intercalary rule.
+    let n = number("lunar", &|s| s["cycle_months"] == 162);
+    assert!(
+        insola(&["calendar", p, "--write", &n.to_string()])
+            .status
+            .success()
+    );
+    let lunar = std::fs::read_to_string(&path).unwrap();
+    assert_eq!(lunar.matches("calendar: (").count(), 1, "{lunar}");
+    assert!(
+        lunar.contains("long_months: 127") && !lunar.contains("intercalary"),
+        "{lunar}"
+    );
+    // And a leap rule brings back a solar calendar.
+    assert!(insola(&["calendar", p, "--write"]).status.success());
+    let solar = std::fs::read_to_string(&path).unwrap();
+    assert!(!solar.contains("moon_months"), "{solar}");
+    assert!(
+        solar.contains("leap: (leap_years: 4, cycle_years: 13)"),
+        "{solar}"
+    );
+}
+
+#[test]
+fn check_and_calendar_print_season_dates_and_their_wander() {
+    // Earth (validation reference): year 1 of its calendar starts at 2000-01-01 00:00 UT. The
+    // seasons of 2000 fell on 20 March 07:35, 21 June 01:48, 22 September 17:27 and
+    // 21 December 13:37 UT (USNO, "Earth's Seasons: Equinoxes, Solstices, Perihelion, and
+    // Aphelion, 2000–2025"; from memory): days 80, 173, 266 and 356 of that leap year.
+    let v = json(&["check", "earth-reference", "--json"]);
+    let seasons = v["season_dates"].as_array().unwrap();
+    let expected = [(80, 7.58), (173, 1.80), (266, 17.45), (356, 13.62)];
+    for (s, (day, hour)) in seasons.iter().zip(expected) {
+        assert_eq!(s["date"]["year"], 1, "{s}");
+        assert_eq!(s["date"]["day_of_year"].as_u64().unwrap() + 1, day, "{s}");
+        let h = s["date"]["hour_of_day"].as_f64().unwrap();
+        // The model's Keplerian orbit (no perturbations) lands within half an hour.
+        assert!((h - hour).abs() < 0.5, "{s}: {h} h");
+    }
+    // Over the 4-in-13 rule's period the dates move by under a day on Verdance.
+    let text = String::from_utf8(insola(&["check", "verdance"]).stdout).unwrap();
+    assert!(
+        text.contains("northward equinox") && text.contains("cycle of 13 years"),
+        "{text}"
+    );
+    let v = json(&["calendar", "verdance", "--year", "5", "--json"]);
+    assert!(
+        v["seasons"]
+            .as_array()
+            .unwrap()
+            .iter()
+            .all(|s| s["date"]["year"] == 5)
+    );
+    for w in v["wander"].as_array().unwrap() {
+        let span =
+            w["latest_day_of_year"].as_f64().unwrap() - w["earliest_day_of_year"].as_f64().unwrap();
+        assert!(span < 1.0 && w["over_years"] == 13, "{w}");
+    }
 }
 
 #[test]

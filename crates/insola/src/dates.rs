@@ -72,7 +72,7 @@ impl Planet {
             year,
             day_of_year: u64::from(day_of_year),
             month: month.map(|(m, _)| m),
-            month_name: month.map(|(m, _)| cal.months[m].name.clone()),
+            month_name: month.and_then(|(m, _)| cal.month_name(year, m)),
             day_of_month: u64::from(month.map_or(day_of_year + 1, |(_, d)| d)),
             hour_of_day,
             year_fraction: year_fraction.clamp(0.0, 1.0 - f64::EPSILON),
@@ -130,6 +130,13 @@ impl Planet {
         let cal = self.calendar();
         let lengths = cal.month_lengths(year);
         let Some(&month_days) = lengths.get(month) else {
+            if month < cal.most_months() {
+                return Err(CalendarError::MonthOutOfYear {
+                    year,
+                    month: (month + 1).to_string(),
+                    year_months: lengths.len(),
+                });
+            }
             return Err(CalendarError::NoSuchMonth {
                 month: (month + 1).to_string(),
                 known: month_list(cal),
@@ -140,7 +147,9 @@ impl Planet {
             Some(d) => self.time_of_date(year, u64::from(d), hour_of_day),
             None => Err(CalendarError::DayOutOfMonth {
                 year,
-                month: cal.months[month].name.clone(),
+                month: cal
+                    .month_name(year, month)
+                    .unwrap_or_else(|| format!("month {}", month + 1)),
                 day_of_month,
                 month_days,
             }),
@@ -154,12 +163,18 @@ impl Planet {
             DayInYear::OfYear(n) => self.time_of_date(d.year, n - 1, d.hour_of_day),
             DayInYear::InMonth { month, day } => {
                 let cal = self.calendar();
+                self.check_year(d.year)?;
                 let index = match month.parse::<usize>() {
                     Ok(n) if n >= 1 => Some(n - 1),
-                    _ => cal.month_index(&month),
+                    _ => cal.month_index_in(d.year, &month),
                 };
                 match index {
                     Some(i) => self.time_of_month_date(d.year, i, day, d.hour_of_day),
+                    None if cal.has_month_named(&month) => Err(CalendarError::MonthOutOfYear {
+                        year: d.year,
+                        month,
+                        year_months: cal.month_lengths(d.year).len(),
+                    }),
                     None => Err(CalendarError::NoSuchMonth {
                         month,
                         known: month_list(cal),
@@ -202,6 +217,16 @@ fn clamp_time(t_s: f64) -> f64 {
 }
 
 fn month_list(cal: &Calendar) -> String {
+    if let Some(m) = &cal.moon_months {
+        return if m.month_names.is_empty() {
+            format!(
+                "numbered 1 to {}",
+                m.year_months + u32::from(m.intercalary.is_some())
+            )
+        } else {
+            m.month_names.join(", ")
+        };
+    }
     if cal.months.is_empty() {
         "none: this calendar has no months".into()
     } else {

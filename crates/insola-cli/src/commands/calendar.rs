@@ -1,19 +1,21 @@
 //! `insola calendar WORLD [--json] [--write [N]]`: leap rules, lunar and lunisolar schemes
 //! that fit the world, the season dates of a year, and writing the chosen rule to the file.
 
+use super::calendar_write::{Choice, choices, number_of};
 use insola::Planet;
-use insola::calendar::CalendarSpec;
 use insola::calendar_design::{
-    CalendarDesign, SeasonDate, SeasonWander, SolarFamily, SolarProposal,
+    CalendarDesign, LunarProposal, LunisolarProposal, SeasonDate, SeasonWander, SolarFamily,
+    SolarProposal,
 };
 use serde::Serialize;
 
 /// Arguments of `insola calendar`.
 #[derive(Debug, clap::Args)]
 #[command(
-    after_help = "Leap rules are numbered from 1; `--write` alone writes the best one (marked *). \
-Lunar and lunisolar schemes are printed for design work; the world file's calendar section holds a \
-solar leap rule. Writing keeps the rest of the file as it is and replaces only its `calendar:` entry \
+    after_help = "Proposals are numbered from 1: leap rules, then each moon's lunar and lunisolar \
+schemes; `--write` alone writes the best leap rule (marked *). A lunar scheme makes years of whole \
+months that run through the seasons; a lunisolar one adds a month in some years to keep them in \
+place (its months follow the moon's best month rule, marked +). Writing keeps the rest of the file as it is and replaces only its `calendar:` entry \
 (with the `// Calendar…` comment lines right above it), or adds one at the end."
 )]
 pub struct Args {
@@ -23,7 +25,7 @@ pub struct Args {
     /// zero).
     #[arg(long, allow_hyphen_values = true)]
     year: Option<i64>,
-    /// Write leap rule N (default: the best) into the world file's calendar section.
+    /// Write proposal N (default: the best leap rule) into the world file's calendar section.
     #[arg(long, num_args = 0..=1, default_missing_value = "best", value_name = "N")]
     write: Option<String>,
     /// Print JSON instead of text.
@@ -38,9 +40,12 @@ pub struct CalendarReport {
     pub name: String,
     /// The proposals.
     pub design: CalendarDesign,
-    /// The world's calendar now: days of a common year.
+    /// Every proposal `--write` takes, numbered from 1 in this order.
+    pub choices: Vec<Choice>,
+    /// The world's calendar now: days of a common year (of the shortest year for months of a
+    /// moon).
     pub year_days: u32,
-    /// The world's leap rule now, in words.
+    /// The world's year rule now, in words.
     pub leap_rule: String,
     /// `true` when the rule comes from the world file, `false` when it is the default.
     pub rule_from_file: bool,
@@ -59,9 +64,10 @@ pub fn report(p: &Planet, year: Option<i64>) -> Result<CalendarReport, String> {
     let year = year.unwrap_or_else(|| p.date_at(0.0).year);
     Ok(CalendarReport {
         name: p.spec().name.clone(),
+        choices: choices(&design),
         design,
         year_days: cal.common_year_days,
-        leap_rule: cal.leap.describe(),
+        leap_rule: cal.describe(),
         rule_from_file: cal.rule_from_file,
         year,
         seasons: p.season_dates(year),
@@ -105,7 +111,7 @@ pub fn season_lines(seasons: &[SeasonDate], wander: &[SeasonWander]) -> Vec<Stri
     }
     if let Some(w) = wander.first() {
         lines.push(format!(
-            "  over the leap rule's {} years each mark moves within its window:",
+            "  over the calendar's cycle of {} years each mark moves within its window:",
             w.over_years
         ));
     }
@@ -126,7 +132,7 @@ pub fn run(args: Args) -> Result<(), String> {
     let p = crate::worlds::load(&args.world)?;
     let r = report(&p, args.year)?;
     if let Some(choice) = &args.write {
-        return write(&args.world, &p, &r.design, choice);
+        return super::calendar_write::write(&args.world, &p, &r.design, choice);
     }
     if args.json {
         return super::output::print_json(&r);
@@ -139,9 +145,13 @@ pub fn run(args: Args) -> Result<(), String> {
         d.tropical_year_days,
         p.day_s() / 3600.0
     );
+    let days = if p.calendar().moon_months.is_some() {
+        String::new()
+    } else {
+        format!("{} days, ", r.year_days)
+    };
     say!(
-        "  calendar now    {} days, {} ({})",
-        r.year_days,
+        "  calendar now    {days}{} ({})",
         r.leap_rule,
         if r.rule_from_file {
             "from the world file"
@@ -175,7 +185,7 @@ pub fn run(args: Args) -> Result<(), String> {
         d.best + 1,
         d.best + 1
     );
-    for m in &d.moons {
+    for (moon, m) in d.moons.iter().enumerate() {
         say!("");
         say!(
             "Moon {}: synodic month {:.5} local days, {:.4} months a year",
@@ -183,20 +193,28 @@ pub fn run(args: Args) -> Result<(), String> {
             m.synodic_month_days,
             m.months_per_year
         );
-        for l in &m.lunar {
+        for (index, l) in m.lunar.iter().enumerate() {
             say!(
-                "  lunar      months of {} and {} days, {} long in {}: mean {:.5} d, drift {:+.2} d per 1000 years against the phases",
+                "{}{:>3} lunar      months of {} and {} days, {} long in {}: mean {:.5} d, drift {:+.2} d per 1000 years against the phases{}",
+                if m.best_lunar == Some(index) {
+                    "+"
+                } else {
+                    " "
+                },
+                number_of(d, Choice::Lunar { moon, index }),
                 l.short_month_days,
                 l.short_month_days + 1,
                 l.long_months,
                 l.cycle_months,
                 l.mean_month_days,
-                l.drift_days_per_1000_years
+                l.drift_days_per_1000_years,
+                in_use(lunar_in_use(&p, &m.moon, l))
             );
         }
-        for s in &m.lunisolar {
+        for (index, s) in m.lunisolar.iter().enumerate() {
             say!(
-                "  lunisolar  {} months in {} ({} of {} months, {} of {}): mean year {:.4} d, drift {:+.1} d per 1000 years against the seasons",
+                " {:>3} lunisolar  {} months in {} ({} of {} months, {} of {}): mean year {:.4} d, drift {:+.1} d per 1000 years against the seasons{}",
+                number_of(d, Choice::Lunisolar { moon, index }),
                 s.months,
                 years(s.years),
                 s.years - s.leap_years,
@@ -204,7 +222,8 @@ pub fn run(args: Args) -> Result<(), String> {
                 s.leap_years,
                 s.common_year_months + 1,
                 s.mean_year_days,
-                s.drift_days_per_1000_years
+                s.drift_days_per_1000_years,
+                in_use(lunisolar_in_use(&p, &m.moon, s))
             );
         }
     }
@@ -216,6 +235,36 @@ pub fn run(args: Args) -> Result<(), String> {
     Ok(())
 }
 
+/// `  (in use)` when `used`.
+fn in_use(used: bool) -> &'static str {
+    if used { "  (in use)" } else { "" }
+}
+
+/// `true` when the world's calendar counts months of `moon` by the month rule of `l` in years
+/// of a fixed number of months.
+fn lunar_in_use(p: &Planet, moon: &str, l: &LunarProposal) -> bool {
+    p.calendar().moon_months.as_ref().is_some_and(|m| {
+        m.moon == moon
+            && m.intercalary.is_none()
+            && m.short_month_days == l.short_month_days
+            && u64::from(m.long_months) == l.long_months
+            && u64::from(m.cycle_months) == l.cycle_months
+    })
+}
+
+/// `true` when the world's calendar counts months of `moon` in the years of cycle `s`.
+fn lunisolar_in_use(p: &Planet, moon: &str, s: &LunisolarProposal) -> bool {
+    p.calendar().moon_months.as_ref().is_some_and(|m| {
+        m.moon == moon
+            && u64::from(m.year_months) == s.common_year_months
+            && m.intercalary.as_ref().is_some_and(|r| {
+                r.exceptions.is_empty()
+                    && u64::from(r.leap_years) == s.leap_years
+                    && u64::from(r.cycle_years) == s.years
+            })
+    })
+}
+
 /// `1 year`, `19 years`.
 fn years(n: u64) -> String {
     if n == 1 {
@@ -223,66 +272,4 @@ fn years(n: u64) -> String {
     } else {
         format!("{n} years")
     }
-}
-
-/// Writes proposal `choice` ("best" or a number from 1) into the world file.
-fn write(world: &str, p: &Planet, design: &CalendarDesign, choice: &str) -> Result<(), String> {
-    let index = if choice == "best" {
-        design.best
-    } else {
-        match choice.parse::<usize>() {
-            Ok(n) if (1..=design.solar.len()).contains(&n) => n - 1,
-            _ => {
-                return Err(format!(
-                    "--write {choice}: give a leap rule's number, 1 to {}",
-                    design.solar.len()
-                ));
-            }
-        }
-    };
-    let path = std::path::Path::new(world);
-    if !path.is_file() {
-        return Err(format!(
-            "--write needs a world file; `{world}` is a built-in world (copy it from assets/ first)"
-        ));
-    }
-    let text = std::fs::read_to_string(path).map_err(|e| format!("{world}: {e}"))?;
-    let chosen = &design.solar[index];
-    let mut spec: CalendarSpec = p.spec().calendar.clone().unwrap_or_default();
-    spec.year_days = Some(chosen.year_days);
-    spec.leap = Some(chosen.leap.clone());
-    let drift = if chosen.drift_days_per_1000_years == 0.0 {
-        "none: the rule matches this world's year exactly".to_string()
-    } else {
-        format!(
-            "{:+.3} days per 1000 years (one day in {:.0} years)",
-            chosen.drift_days_per_1000_years, chosen.years_per_day_of_drift
-        )
-    };
-    let comment = vec![
-        format!(
-            "Calendar chosen with `insola calendar`: {} days, {}.",
-            chosen.year_days,
-            chosen.leap.describe()
-        ),
-        format!(
-            "Mean calendar year {:.5} local days against the tropical year {:.5}.",
-            chosen.mean_year_days, design.tropical_year_days
-        ),
-        format!("Drift against the seasons: {drift}."),
-    ];
-    let new_text = super::calendar_file::with_section(
-        &text,
-        &super::calendar_file::section_text(&spec, &comment),
-    )?;
-    insola::WorldSpec::from_ron_str(&new_text)
-        .map_err(|e| format!("the rewritten file would not load, nothing written: {e}"))?;
-    std::fs::write(path, new_text).map_err(|e| format!("{world}: {e}"))?;
-    say!(
-        "wrote calendar #{}: {} days, {} to {world}",
-        index + 1,
-        chosen.year_days,
-        chosen.leap.describe()
-    );
-    Ok(())
 }

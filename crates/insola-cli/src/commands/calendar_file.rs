@@ -3,7 +3,7 @@
 //! starting with `// Calendar`) is replaced, or a new one is added before the world's closing parenthesis.
 //! Everything else — other sections, comments, layout — is left byte for byte.
 
-use insola::calendar::{CalendarSpec, LeapRule};
+use insola::calendar::{CalendarSpec, LeapRule, MoonMonthsSpec};
 
 /// Text spans of the top-level tuple found by [`scan`].
 struct Layout {
@@ -105,6 +105,9 @@ pub fn section_text(spec: &CalendarSpec, comment: &[String]) -> String {
     if let Some(m) = &spec.leap_month {
         out.push_str(&format!("        leap_month: {m:?},\n"));
     }
+    if let Some(m) = &spec.moon_months {
+        out.push_str(&moon_months_text(m));
+    }
     if let Some(w) = &spec.week {
         let names: Vec<String> = w.names.iter().map(|n| format!("{n:?}")).collect();
         out.push_str(&format!(
@@ -125,6 +128,33 @@ pub fn section_text(spec: &CalendarSpec, comment: &[String]) -> String {
         out.push_str("        ],\n");
     }
     out.push_str("    ),\n");
+    out
+}
+
+/// The `moon_months: (…)` entry, indented by eight spaces, ending in a newline.
+fn moon_months_text(m: &MoonMonthsSpec) -> String {
+    let mut out = String::from("        moon_months: (\n");
+    let mut line = |text: String| out.push_str(&format!("            {text},\n"));
+    line(format!("moon: {:?}", m.moon));
+    line(format!("short_month_days: {}", m.short_month_days));
+    line(format!("long_months: {}", m.long_months));
+    line(format!("cycle_months: {}", m.cycle_months));
+    line(format!("first_month_day: {}", m.first_month_day));
+    line(format!("year_months: {}", m.year_months));
+    if let Some(rule) = &m.intercalary {
+        line(format!("intercalary: {}", rule_text(rule)));
+    }
+    if !m.month_names.is_empty() {
+        let names: Vec<String> = m.month_names.iter().map(|n| format!("{n:?}")).collect();
+        line(format!("month_names: [{}]", names.join(", ")));
+    }
+    if let Some(name) = &m.intercalary_month {
+        line(format!("intercalary_month: {name:?}"));
+    }
+    if let Some(after) = &m.intercalary_after {
+        line(format!("intercalary_after: {after:?}"));
+    }
+    out.push_str("        ),\n");
     out
 }
 
@@ -207,6 +237,36 @@ mod tests {
             new,
             "// A world.\n(\n    name: \"A (calendar: no)\", // calendar: nope\n    spin: (x: 1),\n    calendar: (first_year: 9),\n    moons: [],\n)\n"
         );
+    }
+
+    #[test]
+    fn moon_months_read_back() {
+        let world = insola::built_in_worlds::BUILT_IN_WORLDS
+            .iter()
+            .find(|w| w.name == "verdance")
+            .unwrap();
+        let spec = CalendarSpec {
+            moon_months: Some(MoonMonthsSpec {
+                moon: "Ossel".into(),
+                short_month_days: 27,
+                long_months: 11,
+                cycle_months: 14,
+                first_month_day: -3,
+                year_months: 13,
+                intercalary: Some(LeapRule {
+                    leap_years: 11,
+                    cycle_years: 16,
+                    exceptions: vec![],
+                }),
+                month_names: (1..=13).map(|i| format!("Moon{i}x")).collect(),
+                intercalary_month: Some("Deepmoon".into()),
+                intercalary_after: Some("Moon6x".into()),
+            }),
+            ..CalendarSpec::default()
+        };
+        let text = with_section(world.ron, &section_text(&spec, &["Calendar x".into()])).unwrap();
+        let back = insola::WorldSpec::from_ron_str(&text).unwrap();
+        assert_eq!(back.calendar, Some(spec));
     }
 
     #[test]

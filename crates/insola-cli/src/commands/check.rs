@@ -83,6 +83,12 @@ pub struct CalendarFacts {
     pub tropical_year_days: f64,
     /// Days the calendar gains on the seasons per 1000 years.
     pub drift_days_per_1000_years: f64,
+    /// The moon whose phases the months follow, for a lunar or lunisolar calendar.
+    pub moon: Option<String>,
+    /// Days the months gain on that moon's phases per 1000 years.
+    pub month_drift_days_per_1000_years: Option<f64>,
+    /// `true` for a lunar calendar: years of whole months that run through the seasons.
+    pub lunar: bool,
 }
 
 /// Computes the facts of a planet.
@@ -134,9 +140,26 @@ pub fn facts(p: &Planet) -> Facts {
     if drift.abs() < 1e-6 * tropical {
         drift = 0.0;
     }
-    if drift.abs() > 10.0 {
+    let moon_months = cal.moon_months.as_ref();
+    let lunar = moon_months.is_some_and(|m| m.intercalary.is_none());
+    let month_drift = moon_months.and_then(|m| {
+        let i = p.spec().moons.iter().position(|moon| moon.name == m.moon)?;
+        let orbit = p.moon_orbits().get(i)?;
+        let synodic =
+            insola::moons::synodic_period_s(orbit.period_s, p.tropical_year_s()) / p.day_s();
+        Some(1000.0 * tropical / synodic * (m.mean_month_days() - synodic))
+    });
+    if let (Some(d), Some(m)) = (month_drift, moon_months)
+        && d.abs() > 10.0
+    {
         warnings.push(format!(
-            "calendar: the mean calendar year drifts {drift:+.1} days per 1000 years against the seasons; `insola calendar` proposes closer leap rules"
+            "calendar: the months drift {d:+.1} days per 1000 years against the phases of {}; `insola calendar` proposes closer month rules",
+            m.moon
+        ));
+    }
+    if drift.abs() > 10.0 && !lunar {
+        warnings.push(format!(
+            "calendar: the mean calendar year drifts {drift:+.1} days per 1000 years against the seasons; `insola calendar` proposes closer rules"
         ));
     }
     if let Some(sum) = cal.months_mismatch() {
@@ -186,11 +209,14 @@ pub fn facts(p: &Planet) -> Facts {
         standard_rise_altitude_deg: p.standard_rise_altitude_rad().to_degrees(),
         calendar: CalendarFacts {
             year_days: cal.common_year_days,
-            leap_rule: cal.leap.describe(),
+            leap_rule: cal.describe(),
             rule_from_file: cal.rule_from_file,
             mean_year_days: cal.mean_year_days(),
             tropical_year_days: tropical,
             drift_days_per_1000_years: drift,
+            moon: moon_months.map(|m| m.moon.clone()),
+            month_drift_days_per_1000_years: month_drift,
+            lunar,
         },
         season_dates: p.season_dates(first_year),
         season_wander: p.season_wander(),
@@ -316,9 +342,13 @@ pub fn run(args: Args) -> Result<(), String> {
         f.standard_rise_altitude_deg
     );
     let c = &f.calendar;
+    let days = if c.moon.is_some() {
+        String::new()
+    } else {
+        format!("{} days, ", c.year_days)
+    };
     say!(
-        "  calendar         {} days, {} ({}); mean year {:.5} against the tropical year {:.5} local days, drift {:+.3} days per 1000 years",
-        c.year_days,
+        "  calendar         {days}{} ({}); mean year {:.5} against the tropical year {:.5} local days, drift {:+.3} days per 1000 years",
         c.leap_rule,
         if c.rule_from_file {
             "world file"
@@ -329,6 +359,19 @@ pub fn run(args: Args) -> Result<(), String> {
         c.tropical_year_days,
         c.drift_days_per_1000_years
     );
+    if let (Some(moon), Some(d)) = (&c.moon, c.month_drift_days_per_1000_years) {
+        say!(
+            "  months           follow {moon}'s phases, drift {d:+.3} days per 1000 years against them{}",
+            if c.lunar {
+                format!(
+                    "; a lunar year runs through the seasons once in {:.1} years",
+                    c.tropical_year_days / (c.tropical_year_days - c.mean_year_days).abs()
+                )
+            } else {
+                String::new()
+            }
+        );
+    }
     if let Some(first) = f.season_dates.first() {
         say!("  seasons of year {}:", first.date.year);
     }

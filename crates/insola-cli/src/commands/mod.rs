@@ -2,6 +2,7 @@
 
 pub mod calendar;
 pub mod calendar_file;
+pub mod calendar_write;
 pub mod check;
 pub mod climate;
 pub mod colour_map;

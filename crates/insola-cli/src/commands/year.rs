@@ -22,6 +22,8 @@ pub struct Args {
 pub struct YearRow {
     /// Local day number.
     pub day: i64,
+    /// The world calendar's date of the local day's middle (see [`day_date`]).
+    pub date: String,
     /// Fraction of the year at the day's start.
     pub year_fraction: f64,
     /// Daylight: time the star is up, hours.
@@ -54,6 +56,7 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
             }
             YearRow {
                 day,
+                date: day_date(p, ev.day_start_s, ev.day_length_s),
                 year_fraction: (ev.day_start_s / p.year_s()).rem_euclid(1.0),
                 daylight_h: ev.sunlight.time_above_s / 3600.0,
                 noon_altitude_deg: ev.transit_altitude_rad.unwrap_or(best).to_degrees(),
@@ -61,6 +64,13 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
             }
         })
         .collect()
+}
+
+/// The calendar date (`CalendarDate::text`) of a local day starting at `start_s` and lasting
+/// `length_s` seconds: calendar days run from midnight to midnight at the prime meridian, so a
+/// local day elsewhere is dated by the calendar day holding its middle.
+fn day_date(p: &Planet, start_s: f64, length_s: f64) -> String {
+    p.date_at(start_s + 0.5 * length_s).text()
 }
 
 /// Runs the command.
@@ -72,11 +82,12 @@ pub fn run(args: Args) -> Result<(), String> {
         return super::output::print_json(&rows);
     }
     if args.csv {
-        say!("day,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2");
+        say!("day,date,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2");
         for r in &rows {
             say!(
-                "{},{:.6},{:.4},{:.4},{:.3}",
+                "{},{},{:.6},{:.4},{:.4},{:.3}",
                 r.day,
+                r.date,
                 r.year_fraction,
                 r.daylight_h,
                 r.noon_altitude_deg,
@@ -87,8 +98,9 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     say!("{} at {:.3}°, {:.3}°", p.spec().name, lat, args.at.lon);
     say!(
-        "{:>6} {:>8} {:>10} {:>12} {:>12}",
+        "{:>6} {:>16} {:>8} {:>10} {:>12} {:>12}",
         "day",
+        "date",
         "year",
         "daylight",
         "noon alt °",
@@ -96,8 +108,9 @@ pub fn run(args: Args) -> Result<(), String> {
     );
     for r in &rows {
         say!(
-            "{:>6} {:>8.4} {:>10} {:>12.2} {:>12.1}",
+            "{:>6} {:>16} {:>8.4} {:>10} {:>12.2} {:>12.1}",
             r.day,
+            r.date,
             r.year_fraction,
             super::output::hm(Some(r.daylight_h)),
             r.noon_altitude_deg,

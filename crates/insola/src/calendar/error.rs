@@ -48,6 +48,17 @@ pub enum CalendarError {
         /// The calendar's months.
         known: String,
     },
+    /// A month the calendar has, but not in this year (an intercalary month, or month 13, in a
+    /// common year).
+    #[error("month {month} is not in year {year}: that year has {year_months} months")]
+    MonthOutOfYear {
+        /// Year number.
+        year: i64,
+        /// The month given (name or number from 1).
+        month: String,
+        /// Months in that year.
+        year_months: usize,
+    },
     /// An hour outside the day.
     #[error("hour {hour_of_day} is outside the day: allowed 0 up to {day_hours} h")]
     HourOutOfDay {

@@ -8,15 +8,21 @@
 //! Everything is counted in whole numbers, so date → instant → date is exact; only the time of
 //! day is a float (hours since the day's midnight).
 //!
+//! A calendar of months that follow a moon ([`MoonMonthsSpec`]) counts its years in whole
+//! months instead: the first year begins with its first month, on `first_month_day`, and a
+//! leap year has one month more (lunisolar) or one of the longer runs of months (lunar).
+//!
 //! A world file without a leap rule gets the designer's best rule (see
 //! [`crate::calendar_design`] and [`CalendarSpec`]).
 
 mod error;
 mod leap;
+mod lunar_months;
+mod lunisolar;
 mod parse;
 mod resolved;
 
-pub use crate::world::{CalendarSpec, LeapRule, MonthSpec, WeekSpec};
+pub use crate::world::{CalendarSpec, LeapRule, MonthSpec, MoonMonthsSpec, WeekSpec};
 pub use error::CalendarError;
 pub use parse::{DateText, DayInYear};
 pub use resolved::Calendar;
@@ -35,7 +41,7 @@ pub struct CalendarDate {
     pub day_of_year: u64,
     /// Month index into the calendar's months (from 0), if it has any.
     pub month: Option<usize>,
-    /// Month name, if the calendar has months.
+    /// Month name, if the calendar names its months.
     pub month_name: Option<String>,
     /// Day within the month, from 1 (equals `day_of_year + 1` without months).
     pub day_of_month: u64,
@@ -51,7 +57,8 @@ pub struct CalendarDate {
     pub weekday_name: Option<String>,
     /// Days in this year.
     pub year_days: u32,
-    /// `true` in a leap year.
+    /// `true` in a leap year: one day more (solar calendar), one month more (lunisolar), or
+    /// one of the longer years (lunar).
     pub leap_year: bool,
 }
 
@@ -62,12 +69,14 @@ impl CalendarDate {
         format!("{:02}:{:02}", total_min / 60, total_min % 60)
     }
 
-    /// The date as text in the syntax [`DateText`] reads back: `year/Month/day` with months,
-    /// `year-day` (day of year from 1) without.
+    /// The date as text in the syntax [`DateText`] reads back: `year/Month/day` with named
+    /// months, `year/3/day` with numbered ones (from 1), `year-day` (day of year from 1)
+    /// without months.
     pub fn text(&self) -> String {
-        match &self.month_name {
-            Some(m) => format!("{}/{m}/{}", self.year, self.day_of_month),
-            None => format!("{}-{}", self.year, self.day_of_year + 1),
+        match (&self.month_name, self.month) {
+            (Some(m), _) => format!("{}/{m}/{}", self.year, self.day_of_month),
+            (None, Some(i)) => format!("{}/{}/{}", self.year, i + 1, self.day_of_month),
+            (None, None) => format!("{}-{}", self.year, self.day_of_year + 1),
         }
     }
 

@@ -55,8 +55,9 @@ pub struct LunisolarProposal {
 }
 
 /// Lunar month cycles for a synodic month of `synodic_days` local days, in a world whose
-/// tropical year is `tropical_year_days`; by rising cycle length. Empty for months under two
-/// days.
+/// tropical year is `tropical_year_days`; by rising cycle length: the first six, and more up
+/// to the first drifting at most [`super::BEST_LUNAR_DRIFT_DAYS_PER_KY`]. Empty for months
+/// under two days.
 pub fn lunar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<LunarProposal> {
     if !(synodic_days.is_finite() && synodic_days >= 2.0) {
         return Vec::new();
@@ -64,7 +65,7 @@ pub fn lunar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<LunarP
     let short = synodic_days.floor();
     let frac = synodic_days - short;
     let months_per_ky = 1000.0 * tropical_year_days / synodic_days;
-    best_approximations(frac, MAX_CYCLE_MONTHS)
+    let mut list = best_approximations(frac, MAX_CYCLE_MONTHS)
         .into_iter()
         .filter(|a| {
             (a.numerator > 0 || frac < 1.0e-9)
@@ -81,8 +82,13 @@ pub fn lunar_proposals(synodic_days: f64, tropical_year_days: f64) -> Vec<LunarP
                 kind: a.kind,
             }
         })
-        .take(MAX_PROPOSALS)
-        .collect()
+        .collect::<Vec<_>>();
+    // The first few, and on to the first that keeps step with the phases if they do not.
+    let good = list.iter().position(|p: &LunarProposal| {
+        p.drift_days_per_1000_years.abs() <= super::BEST_LUNAR_DRIFT_DAYS_PER_KY
+    });
+    list.truncate(MAX_PROPOSALS.max(good.map_or(0, |i| i + 1)));
+    list
 }
 
 /// Lunisolar cycles (years holding a whole number of months, some with one more), by rising

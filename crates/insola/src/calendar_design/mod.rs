@@ -9,9 +9,11 @@
 //! The leap cycles are the convergents and semiconvergents of the continued fraction of the
 //! year's fraction of a day (the best rational approximations); Gregorian-style rules add
 //! exceptions at round numbers of years. Each proposal carries its drift against the seasons
-//! and the range of dates of the northward equinox over one period of the rule.
+//! and the range of dates of the northward equinox over one period of the rule. Lunar and
+//! lunisolar proposals become a calendar section with [`Planet::moon_months_of`].
 
 mod lunar;
+mod moon_calendar;
 mod seasons;
 
 pub use crate::leap_rules::{Approximation, ApproximationKind, best_approximations};
@@ -20,6 +22,7 @@ pub use crate::leap_rules::{
     best_solar_rule, offset_range, solar_proposals,
 };
 pub use lunar::{LunarProposal, LunisolarProposal, lunar_proposals, lunisolar_proposals};
+pub use moon_calendar::{BEST_LUNAR_DRIFT_DAYS_PER_KY, best_lunar_index};
 pub use seasons::{SEASON_MARK_NAMES, SeasonDate, SeasonWander};
 
 use serde::{Deserialize, Serialize};
@@ -58,6 +61,9 @@ pub struct MoonSchemes {
     pub lunar: Vec<LunarProposal>,
     /// Cycles of years of whole months.
     pub lunisolar: Vec<LunisolarProposal>,
+    /// Index in `lunar` of the month rule a lunisolar proposal is written with (see
+    /// [`best_lunar_index`]).
+    pub best_lunar: Option<usize>,
 }
 
 /// Everything the designer proposes for one world.
@@ -108,9 +114,9 @@ impl Planet {
             });
         }
         let cal = self.calendar();
-        let current = solar
-            .iter()
-            .position(|p| p.year_days == cal.common_year_days && p.leap == cal.leap);
+        let current = solar.iter().position(|p| {
+            cal.moon_months.is_none() && p.year_days == cal.common_year_days && p.leap == cal.leap
+        });
         let day_s = self.day_s();
         let moons = self
             .moon_orbits()
@@ -118,11 +124,13 @@ impl Planet {
             .zip(&self.spec().moons)
             .map(|(orbit, spec)| {
                 let synodic = synodic_period_s(orbit.period_s, self.tropical_year_s()) / day_s;
+                let lunar = lunar_proposals(synodic, year_days);
                 MoonSchemes {
                     moon: spec.name.clone(),
                     synodic_month_days: synodic,
                     months_per_year: year_days / synodic,
-                    lunar: lunar_proposals(synodic, year_days),
+                    best_lunar: best_lunar_index(&lunar),
+                    lunar,
                     lunisolar: lunisolar_proposals(synodic, year_days),
                 }
             })

@@ -11,6 +11,9 @@
 //! )
 //! ```
 //!
+//! Instead of `year_days`, `leap`, `leap_month` and `months`, a calendar may count its years
+//! in months that follow a moon: `moon_months: (...)` (see [`MoonMonthsSpec`]).
+//!
 //! Every field is optional. Without `year_days` and `leap`, the calendar takes the rule
 //! [`crate::calendar_design`] ranks best for the world's tropical year (what
 //! `insola calendar --write` writes), so files written before leap rules existed still load and
@@ -18,6 +21,7 @@
 
 use serde::{Deserialize, Serialize};
 
+use super::MoonMonthsSpec;
 use crate::error::{SpecError, check_range};
 
 /// The calendar section of a world file.
@@ -39,6 +43,10 @@ pub struct CalendarSpec {
     /// add up to `year_days`; if they fall short the last month takes the remaining days, if
     /// they run over the later months are cut short (`insola check` warns). Empty: no months.
     pub months: Vec<MonthSpec>,
+    /// Months that follow a moon, in lunar or lunisolar years (see [`MoonMonthsSpec`]).
+    /// Replaces `year_days`, `leap`, `leap_month` and `months`. Default: none (a solar
+    /// calendar).
+    pub moon_months: Option<MoonMonthsSpec>,
 }
 
 impl Default for CalendarSpec {
@@ -50,6 +58,7 @@ impl Default for CalendarSpec {
             leap_month: None,
             week: None,
             months: Vec::new(),
+            moon_months: None,
         }
     }
 }
@@ -148,6 +157,21 @@ impl CalendarSpec {
         }
         if let Some(week) = &self.week {
             week.validate(&format!("{path}.week"))?;
+        }
+        if let Some(moon_months) = &self.moon_months {
+            let solar = [
+                ("year_days", self.year_days.is_some()),
+                ("leap", self.leap.is_some()),
+                ("leap_month", self.leap_month.is_some()),
+                ("months", !self.months.is_empty()),
+            ];
+            if let Some((name, _)) = solar.iter().find(|(_, set)| *set) {
+                return Err(SpecError::inconsistent(
+                    format!("{path}.{name}"),
+                    "a calendar of moon_months counts years in months: leave out year_days, leap, leap_month and months",
+                ));
+            }
+            moon_months.validate(&format!("{path}.moon_months"))?;
         }
         Ok(())
     }

@@ -8,6 +8,7 @@
 //! | `body` | [`BodySpec`] | `body.rs` |
 //! | `moons` | [`MoonSpec`] | `moon.rs` |
 //! | `calendar` | [`CalendarSpec`] | `calendar.rs` |
+//! | `calendar.moon_months` | [`MoonMonthsSpec`] | `moon_months.rs` |
 //! | `climate` | [`crate::climate::ClimateSpec`] | `climate/spec.rs` |
 
 mod atmosphere;
@@ -15,6 +16,7 @@ mod body;
 mod calendar;
 mod load;
 mod moon;
+mod moon_months;
 mod spec;
 mod utc;
 mod validate;
@@ -24,6 +26,7 @@ pub use body::*;
 pub use calendar::*;
 pub use load::*;
 pub use moon::*;
+pub use moon_months::*;
 pub use spec::*;
 pub use utc::*;
 pub use validate::*;

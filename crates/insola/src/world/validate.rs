@@ -34,6 +34,14 @@ impl WorldSpec {
         }
         if let Some(calendar) = &self.calendar {
             calendar.validate("calendar")?;
+            if let Some(m) = &calendar.moon_months
+                && !self.moons.iter().any(|moon| moon.name == m.moon)
+            {
+                return Err(SpecError::inconsistent(
+                    "calendar.moon_months.moon",
+                    format!("no moon named `{}` in moons", m.moon),
+                ));
+            }
         }
         Ok(())
     }
