@@ -220,7 +220,7 @@ impl Anderson {
                 .sum();
         }
         let trace: f64 = (0..m).map(|p| a[p * m + p]).sum();
-        if !(trace > 0.0) {
+        if trace.is_nan() || trace <= 0.0 {
             return;
         }
         for p in 0..m {

@@ -43,6 +43,9 @@
 //! uniform map reproduces the zonal model to rounding. Every matrix is factorised once at set-up
 //! (the column systems again on a step where a cell reaches the gray-body limb).
 
+// Grid loops index several arrays by the same cell or row number, as the stencil is written.
+#![allow(clippy::needless_range_loop)]
+
 use super::error::MapClimateError;
 use super::forcing::{ForcingMode, MapForcing, lon_trig};
 use super::grid::MapGrid;

@@ -97,11 +97,12 @@ impl SurfaceLayout {
                     south_deg,
                     north_deg,
                 } => {
-                    if !(west_deg.is_finite() && east_deg.is_finite())
-                        || !(-90.0..=90.0).contains(south_deg)
-                        || !(-90.0..=90.0).contains(north_deg)
-                        || south_deg >= north_deg
-                    {
+                    let ok = west_deg.is_finite()
+                        && east_deg.is_finite()
+                        && (-90.0..=90.0).contains(south_deg)
+                        && (-90.0..=90.0).contains(north_deg)
+                        && south_deg < north_deg;
+                    if !ok {
                         return Err(bad(
                             i,
                             "a rectangle needs finite longitudes and -90 ≤ south_deg < north_deg ≤ 90",

@@ -8,6 +8,9 @@
 //! strictly diagonally dominant (a positive heat capacity on the diagonal), so no pivoting is
 //! needed.
 
+// Grid loops index several arrays by the same cell or row number, as the stencil is written.
+#![allow(clippy::needless_range_loop)]
+
 /// Factorised tridiagonal systems along every column of a `rows × cols` grid (row-major), with
 /// the off-diagonal couplings the same in every column and the diagonal per cell. The sweeps
 /// run over rows with the columns as the inner, contiguous loop, so they vectorise.

@@ -2,6 +2,9 @@
 //! balance, conservation), the continentality the published model shows, and the locked
 //! world's geometry.
 
+// Grid loops index several arrays by the same cell or row number, as the stencil is written.
+#![allow(clippy::needless_range_loop)]
+
 use std::f64::consts::PI;
 
 use super::*;
