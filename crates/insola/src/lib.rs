@@ -16,6 +16,7 @@ pub mod insolation;
 mod leap_rules;
 pub mod light;
 pub mod lighting;
+pub mod map_climate;
 mod moon_orbit;
 pub mod moons;
 pub mod occlusion;
