@@ -5,9 +5,9 @@
 //! many instants. [`Planet::star_position`] pays the whole per-instant chain each time (Kepler's
 //! equation, three arctangents, four `sin_cos`); a track does the place's work once (its
 //! latitude's sine and cosine) and carries the per-instant work from one sample to the next
-//! (see `cursor`): Newton's method for Kepler's equation from the previous anomaly, a fixed
-//! rotation per step for the planet's spin, a small-angle step for the right ascension,
-//! re-anchored on the scalar formulas every 64 samples. The results equal the scalar ones to
+//! (see `cursor`): in blocks of 64 samples anchored on the scalar formulas, Kepler's equation
+//! is solved from the anchor's anomaly by a Taylor step and one Newton step, the planet's spin
+//! turns by a fixed rotation per step, the right ascension moves by a small-angle step. The results equal the scalar ones to
 //! 1e-9 rad and the insolation to 1e-9 of the star's flux (property tests over random worlds,
 //! places and spans; the azimuth as an arc on the sky, since it has no value at the zenith); the parallel forms give the serial results bit for bit, whatever the number of
 //! threads, because their chunks start on the same anchors.
@@ -203,8 +203,8 @@ impl Planet {
         for (j, o) in out.iter_mut().enumerate() {
             let k = first + j;
             let t = times.time_s(k);
-            let raw = cursor.sample::<true>(t, k % ANCHOR_EVERY == 0);
-            *o = cursor.position(t, raw);
+            let raw = cursor.sample::<true>(t, k % ANCHOR_EVERY);
+            *o = cursor.position(raw);
         }
     }
 
@@ -219,7 +219,7 @@ impl Planet {
         let mut cursor = Cursor::new(self, place, times.step_s());
         for (j, o) in out.iter_mut().enumerate() {
             let k = first + j;
-            let raw = cursor.sample::<false>(times.time_s(k), k % ANCHOR_EVERY == 0);
+            let raw = cursor.sample::<false>(times.time_s(k), k % ANCHOR_EVERY);
             *o = raw.toa_flux_w_m2 * raw.enu.z.max(0.0);
         }
     }
