@@ -120,6 +120,8 @@ pub(crate) struct Cursor<'p> {
     /// (unnormalised).
     anchor_ra: f64,
     anchor_ra_xy: (f64, f64),
+    /// `1 / (x² + y²)` of that direction.
+    anchor_ra_inv_norm2: f64,
 }
 
 impl<'p> Cursor<'p> {
@@ -163,6 +165,7 @@ impl<'p> Cursor<'p> {
             anchor_phi: (0.0, 1.0),
             anchor_ra: 0.0,
             anchor_ra_xy: (1.0, 0.0),
+            anchor_ra_inv_norm2: 1.0,
         }
     }
 
@@ -304,6 +307,13 @@ impl<'p> Cursor<'p> {
         let (xa, ya) = self.anchor_ra_xy;
         let cross = xa * y - ya * x;
         let dot = xa * x + ya * y;
+        // 1/dot as a correction of the anchor's 1/|A|²: q below 1e-3 leaves q⁴ ≤ 1e-12.
+        let inv = self.anchor_ra_inv_norm2;
+        let q = (dot * inv) - 1.0;
+        if !anchor && q.abs() < 1e-3 && cross.abs() < MAX_RA_STEP * dot {
+            let inv_dot = inv * (1.0 - q * (1.0 - q * (1.0 - q)));
+            return wrap_tau(self.anchor_ra + small_atan(cross * inv_dot));
+        }
         if !anchor && dot > 0.0 && cross.abs() < MAX_RA_STEP * dot {
             return wrap_tau(self.anchor_ra + small_atan(cross / dot));
         }
@@ -311,6 +321,7 @@ impl<'p> Cursor<'p> {
         if anchor {
             self.anchor_ra = ra;
             self.anchor_ra_xy = (x, y);
+            self.anchor_ra_inv_norm2 = 1.0 / (x * x + y * y);
         }
         ra
     }
