@@ -62,7 +62,11 @@ fn series(c: &mut Criterion) {
         b.iter(|| p.toa_insolation_track_into(place, black_box(times), &mut q))
     });
     g.finish();
-    black_box(out.iter().map(|s: &StarPosition| s.altitude_rad).sum::<f64>());
+    black_box(
+        out.iter()
+            .map(|s: &StarPosition| s.altitude_rad)
+            .sum::<f64>(),
+    );
 }
 
 /// The benchmark group (in a private module so the macro's generated function needs no docs).

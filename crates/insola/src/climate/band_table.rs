@@ -19,7 +19,11 @@ const ROWS_PER_TASK: usize = 16;
 /// Daily-mean insolation, W m⁻², row-major by step (`out[k · lats + j]`), and the
 /// insolation-weighted mean cosine of the zenith angle per latitude (0–1; 0 where the star
 /// never rises), for the steps `days[k] = (declination_rad, distance_factor)`.
-pub(crate) fn band_table(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)]) -> (Vec<f64>, Vec<f64>) {
+pub(crate) fn band_table(
+    s0_w_m2: f64,
+    lats_rad: &[f64],
+    days: &[(f64, f64)],
+) -> (Vec<f64>, Vec<f64>) {
     let n = lats_rad.len();
     let trig: Vec<(f64, f64)> = lats_rad.iter().map(|l| l.sin_cos()).collect();
     let mut w_m2 = vec![0.0; n * days.len()];
@@ -37,7 +41,15 @@ pub(crate) fn band_table(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)]) ->
         .for_each(|(((q, m1), m2), days)| {
             for (r, &(decl, rho)) in days.iter().enumerate() {
                 let row = r * n..(r + 1) * n;
-                fill_row(s0_w_m2, &trig, decl, rho, &mut q[row.clone()], &mut m1[row.clone()], &mut m2[row]);
+                fill_row(
+                    s0_w_m2,
+                    &trig,
+                    decl,
+                    rho,
+                    &mut q[row.clone()],
+                    &mut m1[row.clone()],
+                    &mut m2[row],
+                );
             }
         });
     let mut mean_cos = vec![0.0; n];
@@ -47,7 +59,11 @@ pub(crate) fn band_table(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)]) ->
             num += m2[k * n + j];
             den += m1[k * n + j];
         }
-        *mu = if den > 0.0 { (num / den).clamp(0.0, 1.0) } else { 0.0 };
+        *mu = if den > 0.0 {
+            (num / den).clamp(0.0, 1.0)
+        } else {
+            0.0
+        };
     }
     (w_m2, mean_cos)
 }

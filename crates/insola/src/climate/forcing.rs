@@ -299,7 +299,11 @@ mod tests {
         // The grid path against the per-cell daily mean and weighted cosine it replaced.
         use super::super::albedo::insolation_weighted_cos_zenith;
         use crate::insolation::daily_mean_w_m2;
-        for (e, eps, bands, steps) in [(0.017, 23.4, 90, 180), (0.3, 70.0, 36, 97), (0.0, 0.0, 8, 12)] {
+        for (e, eps, bands, steps) in [
+            (0.017, 23.4, 90, 180),
+            (0.3, 70.0, 36, 97),
+            (0.0, 0.0, 8, 12),
+        ] {
             let grid = ClimateGrid::new(bands).unwrap();
             let f = kepler_forcing(1361.0, e, eps, 100.0, YEAR_S, 365);
             let ins = BandInsolation::from_forcing(&f, &grid, steps).unwrap();

@@ -192,7 +192,7 @@ impl<'p> Cursor<'p> {
         // E(M) to second order: E' = 1/D, E'' = −e sin E / D³ with D = 1 − e cos E.
         let first = dm * inv_a;
         let guess = first - 0.5 * e * a.sin * first * first * inv_a;
-        if !(guess.abs() < MAX_SERIES_ANGLE_RAD) {
+        if guess.is_nan() || guess.abs() >= MAX_SERIES_ANGLE_RAD {
             return None;
         }
         let (s, c) = turn((a.sin, a.cos), small_sin_cos(guess));
@@ -206,7 +206,7 @@ impl<'p> Cursor<'p> {
         };
         // One Newton step on f(E) = E − e sin E − M = d − e sin E.
         let step = -(d - e * s) * inv_guess;
-        if !(step.abs() < MAX_NEWTON_STEP_RAD) {
+        if step.is_nan() || step.abs() >= MAX_NEWTON_STEP_RAD {
             return None;
         }
         let half_sq = 0.5 * step * step;
@@ -350,7 +350,10 @@ mod tests {
         for k in -500..=500 {
             let x = k as f64 * 1e-4;
             let (s, c) = small_sin_cos(x);
-            assert!((s - x.sin()).abs() < 2e-17 && (c - x.cos()).abs() < 2e-16, "{x}");
+            assert!(
+                (s - x.sin()).abs() < 2e-17 && (c - x.cos()).abs() < 2e-16,
+                "{x}"
+            );
             let u = x / 5.0;
             assert!((small_atan(u) - u.atan()).abs() < 2e-18, "{u}");
         }

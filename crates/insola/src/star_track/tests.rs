@@ -24,10 +24,7 @@ fn worst_difference(p: &Planet, place: Place, times: TrackTimes<'_>, got: &[Star
             .max(wrap_pi(g.azimuth_rad - want.azimuth_rad).abs() * want.altitude_rad.cos())
             .max(wrap_pi(g.hour_angle_rad - want.hour_angle_rad).abs() * cos_dec)
             .max((g.direction_enu - want.direction_enu).length())
-            .max(
-                (g.toa_insolation_w_m2 - want.toa_insolation_w_m2).abs()
-                    / flux,
-            );
+            .max((g.toa_insolation_w_m2 - want.toa_insolation_w_m2).abs() / flux);
     }
     worst
 }
@@ -71,7 +68,8 @@ fn parallel_equals_serial_bit_for_bit_and_insolation_matches_positions() {
     assert_eq!(serial, par);
     let (mut q, mut q_par) = (vec![0.0; n], vec![0.0; n]);
     p.toa_insolation_track_into(place, times, &mut q).unwrap();
-    p.toa_insolation_track_par(place, times, &mut q_par).unwrap();
+    p.toa_insolation_track_par(place, times, &mut q_par)
+        .unwrap();
     assert_eq!(q, q_par);
     for (s, q) in serial.iter().zip(&q) {
         assert_eq!(s.toa_insolation_w_m2, *q);
@@ -114,4 +112,3 @@ fn bad_input_is_an_error() {
             .is_ok()
     );
 }
-
