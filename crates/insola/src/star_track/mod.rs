@@ -115,8 +115,13 @@ impl Planet {
     /// ```
     /// # use insola::{Place, Planet, WorldSpec, StarPosition};
     /// # use insola::star_track::TrackTimes;
-    /// # let text = include_str!("../../../../assets/worlds/calvenne.world.ron");
-    /// # let planet = Planet::new(&WorldSpec::from_ron_str(text).unwrap()).unwrap();
+    /// # let planet = Planet::new(&WorldSpec::from_ron_str(r#"(
+    /// #     name: "Tessary",
+    /// #     star: (temperature_k: 5300, radius_r_sun: 0.9, luminosity_l_sun: 0.8),
+    /// #     orbit: (semi_major_axis_au: 0.9, eccentricity: 0.03,
+    /// #             periapsis_longitude_deg: 70, period_days: 310),
+    /// #     spin: (obliquity_deg: 25, solar_day_hours: 26),
+    /// # )"#).unwrap()).unwrap();
     /// let place = Place::from_degrees(41.0, -12.0).unwrap();
     /// let times = TrackTimes::Even { start_s: 0.0, step_s: 600.0, count: 144 };
     /// let mut day = vec![planet.star_position(0.0, place); times.len()];
