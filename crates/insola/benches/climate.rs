@@ -74,6 +74,37 @@ fn bench(c: &mut Criterion) {
     let forcing = demo_forcing();
     let mut year = ModelYear::new(&spec, &forcing);
     c.bench_function("climate/one_model_year_90_bands", |b| b.iter(|| year.run()));
+    // The insolation table of 90 bands x 180 steps: the grid path (`from_forcing`) against the
+    // per-cell formulas it replaced, in the same run.
+    let grid = ClimateGrid::new(spec.bands).unwrap();
+    let steps = spec.steps_per_year;
+    c.bench_function("forcing_table/baseline_per_cell_formulas", |b| {
+        b.iter(|| {
+            let lats = grid.lat_centres_rad();
+            let mut q = Vec::with_capacity(steps * lats.len());
+            let mut days = Vec::with_capacity(steps);
+            for k in 0..steps {
+                let s = forcing.sample_at(k as f64 / steps as f64);
+                days.push((s.declination_rad, s.distance_factor));
+                q.extend(lats.iter().map(|&lat| {
+                    insola::insolation::daily_mean_w_m2(
+                        forcing.s0_w_m2,
+                        lat,
+                        s.declination_rad,
+                        s.distance_factor,
+                    )
+                }));
+            }
+            let mu: Vec<f64> = lats
+                .iter()
+                .map(|&lat| insola::climate::insolation_weighted_cos_zenith(lat, &days))
+                .collect();
+            black_box((q, mu))
+        })
+    });
+    c.bench_function("forcing_table/grid_path", |b| {
+        b.iter(|| BandInsolation::from_forcing(black_box(&forcing), &grid, steps).unwrap())
+    });
     // Scaling with the number of bands: one model year (the implicit diffusion step is a
     // tridiagonal solve, so the cost should grow linearly).
     let mut g = c.benchmark_group("climate_scaling/one_model_year");

@@ -4,8 +4,9 @@
 //! * one star position on the Earth reference world (absolute; target < 150 ns);
 //! * star directions for 1,000,000 places vs a plain loop reading and writing the same bytes;
 //! * daily-mean insolation on 1800 latitudes × 3650 days vs the straightforward per-cell loop;
-//! * scaling: batch directions for 10k / 100k / 1M places and the grid for 450 / 900 / 1800
-//!   latitudes (both should be linear).
+//! * scaling: batch directions for 10k / 100k / 1M places, serial and parallel (the parallel
+//!   form must never be the slower), and the grid for 450 / 900 / 1800 latitudes (both should
+//!   be linear).
 
 use criterion::{BenchmarkId, Criterion, Throughput, black_box, criterion_main};
 use glam::DVec3;
@@ -84,7 +85,11 @@ fn batch_directions(c: &mut Criterion) {
         let batch = places(n);
         let mut out = vec![DVec3::ZERO; n];
         g.throughput(Throughput::Elements(n as u64));
-        g.bench_with_input(BenchmarkId::from_parameter(n), &n, |b, _| {
+        // The serial form is the same-run baseline: the parallel one must never be slower.
+        g.bench_with_input(BenchmarkId::new("serial", n), &n, |b, _| {
+            b.iter(|| p.star_directions_into(&i, &batch, black_box(&mut out)))
+        });
+        g.bench_with_input(BenchmarkId::new("parallel", n), &n, |b, _| {
             b.iter(|| p.star_directions_par(&i, &batch, black_box(&mut out)))
         });
     }

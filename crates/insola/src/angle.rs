@@ -28,6 +28,43 @@ pub fn wrap_pi(a: f64) -> f64 {
     wrap_tau(a + PI) - PI
 }
 
+/// Beyond this magnitude every `f64` is a whole number (2⁵²).
+const WHOLE_FROM: f64 = 4_503_599_627_370_496.0;
+
+/// `x.floor()`, bit for bit (sign of zero and NaN included), without the library call that
+/// `f64::floor` becomes on CPUs without a rounding instruction (the baseline x86-64 target):
+/// below 2⁵² truncation by an integer conversion is exact, and one comparison corrects it for
+/// negative fractions.
+#[inline]
+pub fn floor(x: f64) -> f64 {
+    if x.abs() < WHOLE_FROM {
+        let t = (x as i64 as f64).copysign(x);
+        if t > x { t - 1.0 } else { t }
+    } else {
+        x
+    }
+}
+
+/// `x.round()` (halves away from zero), bit for bit, without the library call (see [`floor`]).
+/// The fraction `x − trunc(x)` is exact below 2⁵², so the halfway test is too.
+#[inline]
+pub fn round(x: f64) -> f64 {
+    if x.abs() < WHOLE_FROM {
+        let t = x as i64 as f64;
+        let r = x - t;
+        let t = if r >= 0.5 {
+            t + 1.0
+        } else if r <= -0.5 {
+            t - 1.0
+        } else {
+            t
+        };
+        t.copysign(x)
+    } else {
+        x
+    }
+}
+
 /// The fraction of a cycle of `period` elapsed at `t` (same units), in `[0, 1)`.
 ///
 /// Why not a floating-point remainder: it is exact, but costs as much as a sine, and buys
@@ -36,7 +73,7 @@ pub fn wrap_pi(a: f64) -> f64 {
 #[inline]
 pub fn cycle_fraction(t: f64, period: f64) -> f64 {
     let q = t / period;
-    let f = q - q.floor();
+    let f = q - floor(q);
     // `q − floor(q)` can round up to 1 for tiny negative q.
     if f < 1.0 { f } else { 0.0 }
 }
@@ -51,6 +88,48 @@ mod tests {
         assert_eq!(wrap_tau(-1e-20), 0.0);
         assert!((wrap_pi(3.0 * PI / 2.0) + PI / 2.0).abs() < 1e-15);
         assert!(wrap_pi(PI) < PI);
+    }
+
+    #[test]
+    fn floor_and_round_match_the_library_bit_for_bit() {
+        let mut xs = vec![
+            0.0,
+            -0.0,
+            0.5,
+            -0.5,
+            1.5,
+            -1.5,
+            2.5,
+            -2.5,
+            0.49999999999999994,
+            -0.49999999999999994,
+            1e-300,
+            -1e-300,
+            4.5e15,
+            -4.5e15,
+            4503599627370495.5,
+            -4503599627370495.5,
+            9e15,
+            -9e15,
+            1e300,
+            -1e300,
+            f64::INFINITY,
+            f64::NEG_INFINITY,
+            f64::MAX,
+            f64::MIN,
+        ];
+        // A spread of magnitudes and fractions, deterministic.
+        let mut v = 0.123_456_789_f64;
+        for k in 0..20_000 {
+            v = (v * 3.7 + 0.31).fract();
+            let mag = 10f64.powi(k % 34 - 17);
+            xs.push((v - 0.5) * mag);
+        }
+        for x in xs {
+            assert_eq!(floor(x).to_bits(), x.floor().to_bits(), "floor {x:e}");
+            assert_eq!(round(x).to_bits(), x.round().to_bits(), "round {x:e}");
+        }
+        assert!(floor(f64::NAN).is_nan() && round(f64::NAN).is_nan());
     }
 
     #[test]

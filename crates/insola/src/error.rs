@@ -155,6 +155,14 @@ pub enum QueryError {
         /// Longest interval allowed for this world and filter, seconds.
         max_s: f64,
     },
+    /// An output buffer whose length does not match the number of results.
+    #[error("output buffer holds {given} elements, {needed} are needed")]
+    BufferLength {
+        /// Number of results.
+        needed: usize,
+        /// Length of the buffer given.
+        given: usize,
+    },
 }
 
 /// Checks a query argument; see [`QueryError`].

@@ -29,12 +29,13 @@ mod sky;
 pub mod sky_events;
 pub mod spin;
 pub mod star_frame;
+pub mod star_track;
 pub mod world;
 mod world_climate;
 
 pub use error::{QueryError, SpecError};
 pub use planet::Planet;
-pub use sky::{Place, StarInstant, StarPosition};
+pub use sky::{Place, PreparedPlace, StarInstant, StarPosition};
 pub use star_frame::{PlaceF32, PlaceSky, PlaceSkyF32, StarFrame, StarFrameF32};
 pub use world::WorldSpec;
 pub use world_climate::{LocalClimate, WorldClimate};

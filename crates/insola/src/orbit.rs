@@ -9,7 +9,7 @@
 
 use std::f64::consts::{PI, TAU};
 
-use crate::angle::{wrap_pi, wrap_tau};
+use crate::angle::{round, wrap_pi, wrap_tau};
 
 /// Largest eccentricity the solver is specified for. Validation allows up to this value.
 pub const MAX_ECCENTRICITY: f64 = 0.99;
@@ -30,7 +30,7 @@ pub fn solve_kepler_sin_cos(mean_anomaly_rad: f64, e: f64) -> (f64, f64, f64) {
         return (mean_anomaly_rad, s, c);
     }
     // Work in [−π, π) and add the whole turns back at the end so large M keep full precision.
-    let turns = (mean_anomaly_rad / TAU).round();
+    let turns = round(mean_anomaly_rad / TAU);
     let m = wrap_pi(mean_anomaly_rad - turns * TAU);
     // f(E) = E − e sin E − M is increasing; the root lies in [M − e, M + e].
     let (mut lo, mut hi) = (m - e, m + e);
@@ -83,7 +83,7 @@ pub fn solve_kepler_sin_cos(mean_anomaly_rad: f64, e: f64) -> (f64, f64, f64) {
 /// True anomaly `v` (radians) from the eccentric anomaly, in the same turn:
 /// `tan(v/2) = √((1+e)/(1−e)) tan(E/2)`.
 pub fn true_anomaly_from_eccentric(eccentric_anomaly_rad: f64, e: f64) -> f64 {
-    let turns = (eccentric_anomaly_rad / TAU).round();
+    let turns = round(eccentric_anomaly_rad / TAU);
     let ecc = eccentric_anomaly_rad - turns * TAU;
     let half = ecc / 2.0;
     let v = 2.0 * ((1.0 + e).sqrt() * half.sin()).atan2((1.0 - e).sqrt() * half.cos());
@@ -129,6 +129,9 @@ pub struct Orbit {
     pub periapsis_sin_cos: (f64, f64),
     /// Mean anomaly at time zero, radians.
     pub mean_anomaly_at_zero_rad: f64,
+    /// `√(1 − e²)`, the semi-minor over the semi-major axis (kept with the eccentricity: set
+    /// both or build with [`Orbit::new`]); every true anomaly needs it.
+    pub axis_ratio: f64,
 }
 
 impl Orbit {
@@ -147,6 +150,7 @@ impl Orbit {
             periapsis_longitude_rad,
             periapsis_sin_cos: periapsis_longitude_rad.sin_cos(),
             mean_anomaly_at_zero_rad: mean_anomaly_from_true(v0, eccentricity),
+            axis_ratio: (1.0 - eccentricity * eccentricity).sqrt(),
         }
     }
 
@@ -174,7 +178,7 @@ impl Orbit {
         let (_, se, ce) = solve_kepler_sin_cos(mean_anomaly_rad, e);
         // True anomaly from sin E and cos E (one atan2):
         // cos v = (cos E − e)/(1 − e cos E), sin v = √(1 − e²) sin E/(1 − e cos E).
-        let (y, x) = ((1.0 - e * e).sqrt() * se, ce - e);
+        let (y, x) = (self.axis_ratio * se, ce - e);
         let v = y.atan2(x);
         // sin and cos of λ = v + ϖ by the angle-sum rule, from those of v and ϖ.
         let denominator = 1.0 - e * ce;

@@ -62,6 +62,30 @@ pub struct StarPosition {
     pub toa_insolation_w_m2: f64,
 }
 
+/// A place with its latitude's sine and cosine worked out once, for many star queries there
+/// ([`Planet::star_position_prepared`]); the time series ([`crate::star_track`]) use it too.
+#[derive(Debug, Clone, Copy, PartialEq)]
+pub struct PreparedPlace {
+    /// The place.
+    pub place: Place,
+    /// Sine of the latitude.
+    pub sin_lat: f64,
+    /// Cosine of the latitude (≥ 0).
+    pub cos_lat: f64,
+}
+
+impl PreparedPlace {
+    /// Prepares `place` (one `sin_cos`).
+    pub fn new(place: Place) -> PreparedPlace {
+        let (sin_lat, cos_lat) = place.latitude_rad.sin_cos();
+        PreparedPlace {
+            place,
+            sin_lat,
+            cos_lat,
+        }
+    }
+}
+
 /// `asin(x)` for `0 ≤ x ≤ 1`; below 0.01 (every star seen from a planet, in practice) by its
 /// series `x + x³/6 + 3x⁵/40 + 5x⁷/112`, whose next term, `35x⁹/1152`, is below 10⁻¹⁷ of `x`
 /// there (the series of arcsine; standard).
@@ -113,6 +137,17 @@ impl Planet {
         star_position_from(instant, place, self.spin().sense.sign())
     }
 
+    /// [`Planet::star_position_at`] for a place prepared once: the same numbers bit for bit,
+    /// without the latitude's `sin_cos` on every call.
+    #[inline]
+    pub fn star_position_prepared(
+        &self,
+        instant: &StarInstant,
+        place: &PreparedPlace,
+    ) -> StarPosition {
+        star_position_trig(instant, place, self.spin().sense.sign())
+    }
+
     /// The star seen from `place` at world time `t_s`.
     pub fn star_position(&self, t_s: f64, place: Place) -> StarPosition {
         self.star_position_at(&self.star_instant(t_s), place)
@@ -145,8 +180,15 @@ impl Planet {
 /// frames ([`crate::star_frame`]).
 #[inline]
 pub(crate) fn star_position_from(instant: &StarInstant, place: Place, sense: f64) -> StarPosition {
-    let (sl, cl) = place.latitude_rad.sin_cos();
-    let h_geo = instant.sidereal_angle_rad + place.longitude_rad - instant.right_ascension_rad;
+    star_position_trig(instant, &PreparedPlace::new(place), sense)
+}
+
+/// [`star_position_from`] with the latitude's sine and cosine given.
+#[inline]
+fn star_position_trig(instant: &StarInstant, place: &PreparedPlace, sense: f64) -> StarPosition {
+    let (sl, cl) = (place.sin_lat, place.cos_lat);
+    let h_geo =
+        instant.sidereal_angle_rad + place.place.longitude_rad - instant.right_ascension_rad;
     let (sd, cd) = (instant.sin_declination, instant.cos_declination);
     let (sh, ch) = h_geo.sin_cos();
     let enu = DVec3::new(-cd * sh, cl * sd - sl * cd * ch, sl * sd + cl * cd * ch);

@@ -1,5 +1,6 @@
 //! `insola year WORLD --lat DEG`: one row per local day of the first year.
 
+use insola::star_track::TrackTimes;
 use insola::{Place, Planet};
 use serde::Serialize;
 
@@ -41,19 +42,29 @@ const INSOLATION_SAMPLES: usize = 96;
 pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
     let first = p.local_day_count(0.0, place.longitude_rad).floor() as i64;
     let n = (p.year_s() / p.day_s()).ceil().clamp(1.0, 100_000.0) as i64;
+    // One buffer for every day's samples, filled by the core's time series.
+    let mut samples = vec![p.star_position(0.0, place); INSOLATION_SAMPLES];
     (0..n)
         .map(|k| {
             let day = first + k;
             let ev = p.day_events(day, place);
-            let mut sum = 0.0;
-            let mut best = f64::MIN;
-            for i in 0..INSOLATION_SAMPLES {
-                let t =
-                    ev.day_start_s + (i as f64 + 0.5) / INSOLATION_SAMPLES as f64 * ev.day_length_s;
-                let s = p.star_position(t, place);
-                sum += s.toa_insolation_w_m2;
-                best = best.max(s.altitude_rad);
+            let step_s = ev.day_length_s / INSOLATION_SAMPLES as f64;
+            let times = TrackTimes::Even {
+                start_s: ev.day_start_s + 0.5 * step_s,
+                step_s,
+                count: INSOLATION_SAMPLES,
+            };
+            if p.star_track_into(place, times, &mut samples).is_err() {
+                // Only non-finite instants are refused; the scalar path gives the same answer.
+                for (i, s) in samples.iter_mut().enumerate() {
+                    *s = p.star_position(times.time_s(i), place);
+                }
             }
+            let sum: f64 = samples.iter().map(|s| s.toa_insolation_w_m2).sum();
+            let best = samples
+                .iter()
+                .map(|s| s.altitude_rad)
+                .fold(f64::MIN, f64::max);
             YearRow {
                 day,
                 date: day_date(p, ev.day_start_s, ev.day_length_s),

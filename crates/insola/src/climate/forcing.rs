@@ -3,10 +3,8 @@
 
 use serde::{Deserialize, Serialize};
 
-use super::albedo::insolation_weighted_cos_zenith;
 use super::grid::ClimateGrid;
 use crate::error::{SpecError, check_range, check_range_open_min};
-use crate::insolation::daily_mean_w_m2;
 
 /// One instant of the year as the climate model needs it.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -42,19 +40,19 @@ impl AnnualForcing {
             ));
         }
         let half_pi = std::f64::consts::FRAC_PI_2;
+        // The field names are formatted only for the sample at fault: a valid forcing is
+        // checked without allocating.
         for (i, s) in self.samples.iter().enumerate() {
-            check_range(
-                &format!("forcing.samples[{i}].declination_rad"),
-                s.declination_rad,
-                -half_pi,
-                half_pi,
-            )?;
-            check_range_open_min(
-                &format!("forcing.samples[{i}].distance_factor"),
-                s.distance_factor,
-                1e-3,
-                1e3,
-            )?;
+            let decl = s.declination_rad;
+            if !(decl.is_finite() && (-half_pi..=half_pi).contains(&decl)) {
+                let field = format!("forcing.samples[{i}].declination_rad");
+                check_range(&field, decl, -half_pi, half_pi)?;
+            }
+            let rho = s.distance_factor;
+            if !(rho.is_finite() && rho > 1e-3 && rho <= 1e3) {
+                let field = format!("forcing.samples[{i}].distance_factor");
+                check_range_open_min(&field, rho, 1e-3, 1e3)?;
+            }
         }
         Ok(())
     }
@@ -108,7 +106,8 @@ pub struct BandInsolation {
 impl BandInsolation {
     /// Builds the table from the orbit forcing: declination and distance are interpolated
     /// linearly in time to each model step ([`AnnualForcing::sample_at`]), then the Berger (1978)
-    /// daily mean is taken at each band centre.
+    /// daily mean is taken at each band centre, by the grid path (each latitude's and each
+    /// step's sines and cosines once; see `band_table`).
     pub fn from_forcing(
         forcing: &AnnualForcing,
         grid: &ClimateGrid,
@@ -116,20 +115,14 @@ impl BandInsolation {
     ) -> Result<Self, SpecError> {
         forcing.validate()?;
         check_range("climate.steps_per_year", steps as f64, 1.0, 1e6)?;
-        let lats = grid.lat_centres_rad();
-        let mut w_m2 = Vec::with_capacity(steps * grid.len());
-        let mut days = Vec::with_capacity(steps);
-        for k in 0..steps {
-            let s = forcing.sample_at(k as f64 / steps as f64);
-            days.push((s.declination_rad, s.distance_factor));
-            w_m2.extend(lats.iter().map(|&lat| {
-                daily_mean_w_m2(forcing.s0_w_m2, lat, s.declination_rad, s.distance_factor)
-            }));
-        }
-        let mean_cos_zenith = lats
-            .iter()
-            .map(|&lat| insolation_weighted_cos_zenith(lat, &days))
+        let days: Vec<(f64, f64)> = (0..steps)
+            .map(|k| {
+                let s = forcing.sample_at(k as f64 / steps as f64);
+                (s.declination_rad, s.distance_factor)
+            })
             .collect();
+        let (w_m2, mean_cos_zenith) =
+            super::band_table::band_table(forcing.s0_w_m2, grid.lat_centres_rad(), &days);
         Ok(BandInsolation {
             steps,
             bands: grid.len(),
@@ -302,11 +295,46 @@ mod tests {
     }
 
     #[test]
+    fn table_equals_the_per_cell_formulas() {
+        // The grid path against the per-cell daily mean and weighted cosine it replaced.
+        use super::super::albedo::insolation_weighted_cos_zenith;
+        use crate::insolation::daily_mean_w_m2;
+        for (e, eps, bands, steps) in [
+            (0.017, 23.4, 90, 180),
+            (0.3, 70.0, 36, 97),
+            (0.0, 0.0, 8, 12),
+        ] {
+            let grid = ClimateGrid::new(bands).unwrap();
+            let f = kepler_forcing(1361.0, e, eps, 100.0, YEAR_S, 365);
+            let ins = BandInsolation::from_forcing(&f, &grid, steps).unwrap();
+            let mut days = vec![];
+            for k in 0..steps {
+                let s = f.sample_at(k as f64 / steps as f64);
+                days.push((s.declination_rad, s.distance_factor));
+                for (j, &lat) in grid.lat_centres_rad().iter().enumerate() {
+                    let want = daily_mean_w_m2(1361.0, lat, s.declination_rad, s.distance_factor);
+                    assert!((ins.row(k)[j] - want).abs() <= 1e-12 * want.max(1.0));
+                }
+            }
+            for (j, &lat) in grid.lat_centres_rad().iter().enumerate() {
+                let want = insolation_weighted_cos_zenith(lat, &days);
+                assert!((ins.mean_cos_zenith().unwrap()[j] - want).abs() <= 1e-12);
+            }
+        }
+    }
+
+    #[test]
     fn bad_forcing_names_the_sample() {
         let mut f = kepler_forcing(1361.0, 0.0, 23.0, 0.0, YEAR_S, 12);
         f.samples[3].distance_factor = f64::NAN;
         let err = f.validate().unwrap_err();
         assert_eq!(err.field(), Some("forcing.samples[3].distance_factor"));
+        f.samples[3].distance_factor = 1.0;
+        f.samples[5].declination_rad = 2.0;
+        let err = f.validate().unwrap_err();
+        assert_eq!(err.field(), Some("forcing.samples[5].declination_rad"));
+        f.samples[5].declination_rad = 0.1;
+        assert!(f.validate().is_ok());
         let empty = AnnualForcing {
             samples: vec![],
             ..f

@@ -52,6 +52,7 @@
 //! marked validation references.
 
 mod albedo;
+mod band_table;
 mod cycle;
 mod ebm;
 mod equilibrium;
