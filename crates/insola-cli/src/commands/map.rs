@@ -28,9 +28,9 @@ use insola::Planet;
 use insola::constants::SECONDS_PER_DAY;
 use insola::insolation::daily_mean_grid_w_m2;
 
-use super::colour_map::{
-    Canvas, Colour, DAYLIGHT, FROST, SUNLIGHT, Scale, WARMTH, nice_ticks, text_width,
-};
+use super::colour_map::{DAYLIGHT, FROST, SUNLIGHT, Scale, WARMTH};
+use super::plot::field::zone_lines;
+use super::plot::heat_map::HeatMap;
 
 /// What to draw.
 #[derive(Debug, Clone, Copy, PartialEq, Eq, clap::ValueEnum)]
@@ -68,20 +68,6 @@ pub struct Args {
     json: bool,
 }
 
-/// Picture size, px.
-pub const WIDTH: u32 = 960;
-/// Picture height, px.
-pub const HEIGHT: u32 = 540;
-const PLOT_X: i64 = 86;
-const PLOT_Y: i64 = 86;
-const PLOT_W: i64 = 720;
-const PLOT_H: i64 = 380;
-const BG: Colour = [250, 249, 246];
-const INK: Colour = [28, 28, 32];
-const SOFT: Colour = [96, 96, 104];
-const WHITE: Colour = [255, 255, 255];
-const BLACK: Colour = [0, 0, 0];
-
 /// Sampled values: `values[k * lats.len() + i]` at latitude `lats_deg[i]` (south to north) and
 /// year fraction `fractions[k]`.
 pub struct Field {
@@ -94,7 +80,8 @@ pub struct Field {
 }
 
 impl Field {
-    fn at(&self, k: usize, i: usize) -> f64 {
+    /// The value at time sample `k` and latitude sample `i`.
+    pub fn at(&self, k: usize, i: usize) -> f64 {
         self.values[k * self.lats_deg.len() + i]
     }
 }
@@ -263,156 +250,46 @@ fn round_down(v: f64, step: f64) -> f64 {
     (v / step).floor() * step
 }
 
-/// Draws the heat map.
-pub fn render(p: &Planet, q: Quantity, field: &Field) -> image::RgbImage {
+/// The heat map of a sampled field.
+fn heat_map<'a>(p: &Planet, q: Quantity, field: &'a Field) -> HeatMap<'a> {
     let st = style(p, q, field);
-    let mut cv = Canvas::new(WIDTH, HEIGHT, BG);
-    let (n_lat, n_time) = (field.lats_deg.len(), field.fractions.len());
-
-    // Cells: each pixel takes the nearest sample.
-    let mut cell = vec![0.0; (PLOT_W * PLOT_H) as usize];
-    for py in 0..PLOT_H {
-        let lat_frac = 1.0 - (py as f64 + 0.5) / PLOT_H as f64; // 0 south .. 1 north
-        let i = ((lat_frac * n_lat as f64) as usize).min(n_lat - 1);
-        for px in 0..PLOT_W {
-            let k = (((px as f64 + 0.5) / PLOT_W as f64 * n_time as f64) as usize).min(n_time - 1);
-            let v = field.at(k, i);
-            cell[(py * PLOT_W + px) as usize] = v;
-            cv.put(PLOT_X + px, PLOT_Y + py, st.scale.colour(v));
-        }
-    }
-    // Freezing line for temperature maps: pixels where 0 °C is crossed to the right or below.
-    if q == Quantity::Temperature {
-        for py in 0..PLOT_H {
-            for px in 0..PLOT_W {
-                let v = cell[(py * PLOT_W + px) as usize];
-                let r = if px + 1 < PLOT_W {
-                    cell[(py * PLOT_W + px + 1) as usize]
-                } else {
-                    v
-                };
-                let d = if py + 1 < PLOT_H {
-                    cell[((py + 1) * PLOT_W + px) as usize]
-                } else {
-                    v
-                };
-                if (v < 0.0) != (r < 0.0) || (v < 0.0) != (d < 0.0) {
-                    cv.put(PLOT_X + px, PLOT_Y + py, BLACK);
-                }
-            }
-        }
-    }
-    cv.frame(PLOT_X - 1, PLOT_Y - 1, PLOT_W + 2, PLOT_H + 2, INK);
-
-    // Title and subtitle.
-    cv.text(PLOT_X, 14, &st.title, 2, INK);
-    let sub = subtitle(p);
-    cv.text(PLOT_X, 38, &sub, 1, SOFT);
-
-    // Latitude axis.
-    let y_of = |lat: f64| PLOT_Y + ((90.0 - lat) / 180.0 * PLOT_H as f64).round() as i64;
-    for lat in [-90.0, -60.0, -30.0, 0.0, 30.0, 60.0, 90.0] {
-        let y = y_of(lat).min(PLOT_Y + PLOT_H - 1);
-        cv.hline(PLOT_X - 6, PLOT_X - 2, y, INK);
-        let s = lat_text(lat);
-        cv.text(PLOT_X - 10 - text_width(&s, 1), y - 4, &s, 1, INK);
-    }
-    let ylab = "latitude";
-    cv.text_up(16, PLOT_Y + PLOT_H / 2 + text_width(ylab, 1) / 2, ylab, INK);
-
-    // Tropics and polar circles.
-    let z = p.zone_latitudes();
-    let mut lines = Vec::new();
-    if z.tropic_lat_deg > 0.3 && z.tropic_lat_deg < 89.7 {
-        lines.push((z.tropic_lat_deg, "tropic"));
-    }
-    if z.polar_circle_lat_deg > 0.3 && z.polar_circle_lat_deg < 89.7 {
-        lines.push((z.polar_circle_lat_deg, "polar circle"));
-    }
-    for &(lat, what) in &lines {
-        for sign in [1.0, -1.0] {
-            let y = y_of(sign * lat);
-            cv.dashed_hline(PLOT_X, PLOT_X + PLOT_W - 1, y, 6, WHITE, BLACK);
-            let s = format!("{what} {}", lat_text(sign * lat));
-            let w = text_width(&s, 1);
-            // Label just above the line (below it for the southern lines), at the right.
-            let ly = if sign > 0.0 { y - 13 } else { y + 4 };
-            cv.label(PLOT_X + PLOT_W - w - 6, ly, &s, INK, WHITE);
-        }
-    }
-
-    // Time axis: ticks in the world's days, plus the equinoxes and solstices.
     let (day_len_s, day_word) = if p.spin().is_tidally_locked() {
         (SECONDS_PER_DAY, "standard days")
     } else {
         (p.day_s(), "local days")
     };
     let year_days = p.year_s() / day_len_s;
-    let x_of = |f: f64| PLOT_X + (f * PLOT_W as f64).round() as i64;
-    let ticks = nice_ticks(0.0, year_days, 8);
-    for d in ticks {
-        let x = x_of(d / year_days).min(PLOT_X + PLOT_W - 1);
-        cv.vline(x, PLOT_Y + PLOT_H + 1, PLOT_Y + PLOT_H + 5, INK);
-        let s = format!("{d}");
-        cv.text(x - text_width(&s, 1) / 2, PLOT_Y + PLOT_H + 9, &s, 1, INK);
-    }
-    let xlab = format!(
-        "time of year: {day_word} since time zero (year = {year_days:.1} days of {:.1} h)",
-        day_len_s / 3600.0
-    );
-    cv.text(
-        PLOT_X + PLOT_W / 2 - text_width(&xlab, 1) / 2,
-        PLOT_Y + PLOT_H + 24,
-        &xlab,
-        1,
-        INK,
-    );
+    let z = p.zone_latitudes();
     let marks = p.season_marks_after(0.0);
     let year = p.year_s();
-    let mut row_alt = false;
     let season_marks = [
         (marks.northward_equinox_s, "equinox (N spring)"),
         (marks.northern_solstice_s, "N solstice"),
         (marks.southward_equinox_s, "equinox (S spring)"),
         (marks.southern_solstice_s, "S solstice"),
-    ];
-    for (t_s, name) in season_marks {
-        let t = t_s.rem_euclid(year) / year;
-        let x = x_of(t);
-        cv.dashed_vline(x, PLOT_Y, PLOT_Y + PLOT_H - 1, 3, WHITE, BLACK);
-        cv.vline(x, PLOT_Y - 8, PLOT_Y - 2, INK);
-        let w = text_width(name, 1);
-        let lx = (x - w / 2).clamp(PLOT_X, PLOT_X + PLOT_W - w);
-        // Alternate two rows so neighbouring marks cannot overlap.
-        let ly = if row_alt { PLOT_Y - 30 } else { PLOT_Y - 19 };
-        row_alt = !row_alt;
-        cv.text(lx, ly, name, 1, INK);
+    ]
+    .map(|(t, name)| (t.rem_euclid(year) / year, name))
+    .to_vec();
+    HeatMap {
+        field,
+        title: st.title,
+        subtitle: subtitle(p),
+        note: st.note.to_string(),
+        unit: st.unit.to_string(),
+        scale: st.scale,
+        zero_line: q == Quantity::Temperature,
+        year_days,
+        x_desc: format!(
+            "time of year: {day_word} since time zero (year = {year_days:.1} days of {:.1} h)",
+            day_len_s / 3600.0
+        ),
+        lat_lines: zone_lines(z.tropic_lat_deg, z.polar_circle_lat_deg),
+        season_marks,
     }
-
-    // Colour scale.
-    let bx = PLOT_X + PLOT_W + 34;
-    let (lo, hi) = st.scale.range();
-    for py in 0..PLOT_H {
-        let v = hi - (py as f64 + 0.5) / PLOT_H as f64 * (hi - lo);
-        cv.rect(bx, PLOT_Y + py, 18, 1, st.scale.colour(v));
-    }
-    cv.frame(bx - 1, PLOT_Y - 1, 20, PLOT_H + 2, INK);
-    for v in nice_ticks(lo, hi, 8) {
-        let y = PLOT_Y + ((hi - v) / (hi - lo) * PLOT_H as f64).round() as i64;
-        let y = y.clamp(PLOT_Y, PLOT_Y + PLOT_H - 1);
-        cv.hline(bx + 18, bx + 22, y, INK);
-        let s = format!("{v}");
-        cv.text(bx + 26, y - 4, &s, 1, INK);
-    }
-    let uw = text_width(st.unit, 1);
-    cv.text(bx + 9 - uw / 2, PLOT_Y - 16, st.unit, 1, INK);
-
-    // Footnote.
-    cv.text(PLOT_X, HEIGHT as i64 - 24, st.note, 1, SOFT);
-    cv.img
 }
 
-fn subtitle(p: &Planet) -> String {
+/// The world's numbers under a chart's title.
+pub fn subtitle(p: &Planet) -> String {
     let s = &p.spec();
     let mut out = format!(
         "tilt {:.1}°, eccentricity {:.3}, year {:.1} standard days",
@@ -420,7 +297,9 @@ fn subtitle(p: &Planet) -> String {
         s.orbit.eccentricity,
         p.year_s() / SECONDS_PER_DAY
     );
-    if !p.spin().is_tidally_locked() {
+    if p.spin().is_tidally_locked() {
+        out.push_str(", tidally locked");
+    } else {
         out.push_str(&format!(
             ", solar day {:.1} h",
             p.spin().solar_day_s / 3600.0
@@ -430,22 +309,6 @@ fn subtitle(p: &Planet) -> String {
         out.push_str("  (validation reference, not game content)");
     }
     out
-}
-
-fn lat_text(lat: f64) -> String {
-    let a = lat.abs();
-    let a = if (a - a.round()).abs() < 0.05 {
-        format!("{:.0}", a)
-    } else {
-        format!("{:.1}", a)
-    };
-    if lat > 0.05 {
-        format!("{a}°N")
-    } else if lat < -0.05 {
-        format!("{a}°S")
-    } else {
-        "0°".to_string()
-    }
 }
 
 fn write_csv(
@@ -519,9 +382,7 @@ pub fn run(args: Args) -> Result<(), String> {
     let field = sample(&p, args.quantity, args.lats, args.days)?;
     let st = style(&p, args.quantity, &field);
     if let Some(path) = &args.png {
-        let img = render(&p, args.quantity, &field);
-        img.save_with_format(path, image::ImageFormat::Png)
-            .map_err(|e| format!("cannot write {path}: {e}"))?;
+        super::plot::save(&heat_map(&p, args.quantity, &field), path)?;
     }
     if let Some(path) = &args.csv {
         let day_len = if p.spin().is_tidally_locked() {
