@@ -28,7 +28,7 @@ use insola::Planet;
 use insola::constants::SECONDS_PER_DAY;
 use insola::insolation::daily_mean_grid_w_m2;
 
-use super::colour_map::{DAYLIGHT, FROST, SUNLIGHT, Scale, WARMTH};
+use super::colour_map::{DAYLIGHT, SUNLIGHT, Scale};
 use super::plot::field::zone_lines;
 use super::plot::heat_map::HeatMap;
 
@@ -39,8 +39,19 @@ pub enum Quantity {
     Insolation,
     /// Daylight (time the star is up), hours.
     Daylight,
-    /// Zonal-mean surface temperature from the climate model, °C.
+    /// Surface temperature, °C: zonal mean over the year, or with a surface the map model's
+    /// at one time of year (`--day`).
     Temperature,
+    /// With a surface: annual-mean surface temperature, °C.
+    AnnualMean,
+    /// With a surface: coldest surface temperature of the year, °C.
+    AnnualMin,
+    /// With a surface: warmest surface temperature of the year, °C.
+    AnnualMax,
+    /// With a surface: thermal zones (never freezes, winter frost, frozen ground, lasting ice).
+    Zones,
+    /// With a surface: standard days a year above 5 °C.
+    GrowingDays,
 }
 
 /// Arguments of `insola map`.
@@ -57,9 +68,24 @@ pub struct Args {
     /// Time samples over one year (2–5000).
     #[arg(long, default_value_t = 365)]
     days: usize,
-    /// Write the heat map to this PNG file (960 × 540 px).
-    #[arg(long)]
+    /// Write the picture to this file, PNG or SVG by the extension (960 × 540 px; with a
+    /// surface 960 × 560 px).
+    #[arg(long, value_name = "FILE")]
     png: Option<String>,
+    /// Map the two-dimensional climate over this land file: a PNG mask in equirectangular
+    /// projection (dark pixels are land) or a RON layout of shapes (`*.land.ron`).
+    #[arg(long, value_name = "FILE", conflicts_with = "all_sea")]
+    land: Option<String>,
+    /// Map the two-dimensional climate over a planet-wide sea (no land file).
+    #[arg(long)]
+    all_sea: bool,
+    /// With a surface and `--quantity temperature`: the time of year, in local days since time
+    /// zero (standard days on a tidally locked world). Default: the northern solstice.
+    #[arg(long, allow_hyphen_values = true)]
+    day: Option<f64>,
+    /// With a surface: the model grid, COLUMNSxROWS (4–4096 by 4–2000).
+    #[arg(long, default_value = "128x64", value_name = "COLUMNSxROWS")]
+    grid: String,
     /// Write the samples to this CSV file (one row per sample).
     #[arg(long)]
     csv: Option<String>,
@@ -132,7 +158,7 @@ pub fn sample(p: &Planet, q: Quantity, n_lat: usize, n_time: usize) -> Result<Fi
                 }
             }
         }
-        Quantity::Temperature => {
+        _ => {
             let c = crate::climate_setup::cycle_of(p)?;
             for (k, f) in fractions.iter().enumerate() {
                 for (i, &lat) in lats_rad.iter().enumerate() {
@@ -208,29 +234,8 @@ fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
                 },
             }
         }
-        Quantity::Temperature => {
-            let (lo, hi) = (round_down(lo, 5.0), round_up(hi, 5.0));
-            let scale = if lo < 0.0 && hi > 0.0 {
-                Scale::Split {
-                    below: FROST,
-                    above: WARMTH,
-                    lo,
-                    mid: 0.0,
-                    hi,
-                }
-            } else if hi <= 0.0 {
-                Scale::Linear {
-                    ramp: FROST,
-                    lo,
-                    hi: hi.max(lo + 5.0),
-                }
-            } else {
-                Scale::Linear {
-                    ramp: WARMTH,
-                    lo,
-                    hi: hi.max(lo + 5.0),
-                }
-            };
+        _ => {
+            let scale = super::map_land::temperature_scale(lo, hi);
             Style {
                 title: format!("{name}: surface temperature"),
                 unit: "°C",
@@ -359,6 +364,9 @@ pub struct MapReport {
     pub png: Option<String>,
     /// CSV written, if any.
     pub csv: Option<String>,
+    /// The surface of a latitude × longitude map (land file name or "all sea"); null for the
+    /// zonal latitude × time map.
+    pub surface: Option<String>,
 }
 
 /// Runs the command.
@@ -379,6 +387,21 @@ pub fn run(args: Args) -> Result<(), String> {
         return Err("nothing to write: give --png FILE and/or --csv FILE".into());
     }
     let p = crate::worlds::load(&args.world)?;
+    if args.land.is_some() || args.all_sea {
+        return run_surface(&args, &p);
+    }
+    if !matches!(
+        args.quantity,
+        Quantity::Insolation | Quantity::Daylight | Quantity::Temperature
+    ) {
+        return Err(format!(
+            "--quantity {} needs a surface: give --land FILE or --all-sea",
+            super::map_land::quantity_name(args.quantity)
+        ));
+    }
+    if args.day.is_some() {
+        return Err("--day picks the time of a latitude × longitude map: give --land FILE or --all-sea".into());
+    }
     let field = sample(&p, args.quantity, args.lats, args.days)?;
     let st = style(&p, args.quantity, &field);
     if let Some(path) = &args.png {
@@ -398,11 +421,7 @@ pub fn run(args: Args) -> Result<(), String> {
         .iter()
         .copied()
         .fold(f64::NEG_INFINITY, f64::max);
-    let quantity = match args.quantity {
-        Quantity::Insolation => "insolation",
-        Quantity::Daylight => "daylight",
-        Quantity::Temperature => "temperature",
-    };
+    let quantity = super::map_land::quantity_name(args.quantity);
     if args.json {
         return super::output::print_json(&MapReport {
             name: p.spec().name.clone(),
@@ -414,6 +433,7 @@ pub fn run(args: Args) -> Result<(), String> {
             days: args.days,
             png: args.png.clone(),
             csv: args.csv.clone(),
+            surface: None,
         });
     }
     say!(
@@ -422,6 +442,46 @@ pub fn run(args: Args) -> Result<(), String> {
         st.unit,
         args.lats,
         args.days
+    );
+    for f in [&args.png, &args.csv].into_iter().flatten() {
+        say!("  wrote {f}");
+    }
+    Ok(())
+}
+
+/// `insola map --land FILE` / `--all-sea`: the map climate on a latitude × longitude map.
+fn run_surface(args: &Args, p: &Planet) -> Result<(), String> {
+    let req = super::map_land::Request {
+        quantity: args.quantity,
+        land: args.land.as_deref(),
+        day: args.day,
+        grid: super::land::parse_grid(&args.grid)?,
+    };
+    let d = super::map_land::run(p, &req, args.png.as_deref(), args.csv.as_deref())?;
+    if args.json {
+        return super::output::print_json(&MapReport {
+            name: p.spec().name.clone(),
+            quantity: d.quantity.into(),
+            unit: d.unit.into(),
+            min: d.min,
+            max: d.max,
+            lats: req.grid.row_count(),
+            days: 0,
+            png: args.png.clone(),
+            csv: args.csv.clone(),
+            surface: Some(d.surface),
+        });
+    }
+    say!(
+        "{}: {} from {:.1} to {:.1} {} over {} on a {} × {} model grid",
+        p.spec().name,
+        d.quantity,
+        d.min,
+        d.max,
+        d.unit,
+        d.surface,
+        req.grid.columns(),
+        req.grid.row_count()
     );
     for f in [&args.png, &args.csv].into_iter().flatten() {
         say!("  wrote {f}");
