@@ -13,6 +13,13 @@ pub struct Args {
     /// Print JSON instead of text.
     #[arg(long)]
     json: bool,
+    /// Compute the habitability warnings over this land file (a PNG mask, dark pixels land,
+    /// or a RON layout of shapes) instead of a planet-wide sea.
+    #[arg(long, value_name = "FILE")]
+    land: Option<String>,
+    /// With --land: the map model's grid, COLUMNSxROWS.
+    #[arg(long, default_value = "128x64", value_name = "COLUMNSxROWS")]
+    grid: String,
 }
 
 /// Derived facts about a world.
@@ -66,6 +73,11 @@ pub struct Facts {
     pub season_wander: Vec<insola::calendar_design::SeasonWander>,
     /// Things a designer may want to know.
     pub warnings: Vec<String>,
+    /// Habitability warnings from the map climate, each with what it is computed from (also
+    /// among `warnings`).
+    pub habitability: Vec<super::check_habitability::Habitability>,
+    /// The map climate the habitability warnings come from, in words.
+    pub habitability_from: String,
 }
 
 /// The calendar in a few numbers.
@@ -100,12 +112,6 @@ pub fn facts(p: &Planet) -> Facts {
     let e = spec.orbit.eccentricity;
     let swing = ((1.0 + e) / (1.0 - e)).powi(2);
     let mut warnings = Vec::new();
-    if spec.spin.obliquity_deg > 80.0 && spec.spin.obliquity_deg < 100.0 {
-        warnings.push(format!(
-            "tilt {:.1}° is near 90°: seasons this extreme are commonly held too harsh for people (common practice, no source)",
-            spec.spin.obliquity_deg
-        ));
-    }
     if z.overlapping {
         warnings.push("tilt above 45°: the tropics lie poleward of the polar circles".into());
     }
@@ -221,6 +227,8 @@ pub fn facts(p: &Planet) -> Facts {
         season_dates: p.season_dates(first_year),
         season_wander: p.season_wander(),
         warnings,
+        habitability: Vec::new(),
+        habitability_from: String::new(),
     }
 }
 
@@ -285,7 +293,14 @@ fn albedo_facts(p: &Planet) -> AlbedoFacts {
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let p = crate::worlds::load(&args.world)?;
-    let f = facts(&p);
+    let mut f = facts(&p);
+    let (found, from) = super::check_habitability::findings(&p, args.land.as_deref(), &args.grid)?;
+    for h in &found {
+        f.warnings
+            .push(format!("habitability: {} (from {})", h.message, h.basis));
+    }
+    f.habitability = found;
+    f.habitability_from = from;
     if args.json {
         return super::output::print_json(&f);
     }
@@ -377,6 +392,12 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     for line in super::calendar::season_lines(&f.season_dates, &f.season_wander) {
         say!("  {line}");
+    }
+    if f.habitability.is_empty() {
+        say!(
+            "  habitability     no warnings from the {}",
+            f.habitability_from
+        );
     }
     for w in &f.warnings {
         say!("  warning: {w}");

@@ -183,9 +183,7 @@ impl ClimateCycle {
             }
             None => (0.0, 0.0),
         };
-        let omega = TAU / solar_day_s;
-        let kappa = self.spec.diurnal_damping_w_m2_per_k
-            / (omega * self.spec.surface_heat_capacity_j_m2_per_k);
+        let kappa = self.spec.diurnal_kappa(solar_day_s);
         let response = DiurnalResponse::new(decl_rad, self.spec.diurnal_damping_w_m2_per_k, kappa);
         Ok(ClimateInstant {
             cycle: self,

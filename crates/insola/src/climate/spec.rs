@@ -161,6 +161,16 @@ impl ClimateSpec {
         }
     }
 
+    /// The day-night layer's dimensionless relaxation rate `κ = λ / (ω C)` for a mean solar day
+    /// of `solar_day_s` seconds: `λ` the diurnal damping (W m⁻² K⁻¹), `C` the thin surface
+    /// layer's heat capacity (J m⁻² K⁻¹), `ω = 2π / solar_day_s` the rotation rate (rad s⁻¹).
+    /// Large κ: the surface follows the star through the day; small κ: it barely swings. The
+    /// one definition the zonal model's local temperatures and the map model's share.
+    pub fn diurnal_kappa(&self, solar_day_s: f64) -> f64 {
+        let omega = std::f64::consts::TAU / solar_day_s;
+        self.diurnal_damping_w_m2_per_k / (omega * self.surface_heat_capacity_j_m2_per_k)
+    }
+
     /// Column heat capacity of a band, J m⁻² K⁻¹: ocean mixed layer and land by area fraction.
     pub fn heat_capacity_j_m2_per_k(&self) -> f64 {
         let ocean = WATER_DENSITY_KG_M3 * WATER_SPECIFIC_HEAT_J_KG_K * self.mixed_layer_depth_m;
@@ -383,6 +393,17 @@ impl TryFrom<ClimateSection> for ClimateSpec {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn diurnal_kappa_is_damping_over_rotation_times_capacity() {
+        // κ = λ / (ω C) with the defaults λ = 30 W m⁻² K⁻¹, C = 6×10⁵ J m⁻² K⁻¹ and a 24 h day:
+        // ω = 2π / 86 400 s = 7.2722×10⁻⁵ rad/s, κ = 30 / 43.633 = 0.68755.
+        let k = ClimateSpec::default().diurnal_kappa(86_400.0);
+        assert!((k - 0.687_55).abs() < 1e-5, "{k}");
+        // Twice the day, twice κ: the layer has twice as long to follow the star.
+        let k2 = ClimateSpec::default().diurnal_kappa(172_800.0);
+        assert!((k2 - 2.0 * k).abs() < 1e-12);
+    }
 
     #[test]
     fn presets_are_valid() {

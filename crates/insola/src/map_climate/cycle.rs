@@ -1,7 +1,7 @@
 //! The periodic map climate: surface temperature per cell and step, statistics, and queries at
 //! any latitude and longitude.
 
-use std::f64::consts::{FRAC_PI_2, TAU};
+use std::f64::consts::FRAC_PI_2;
 
 use serde::{Deserialize, Serialize};
 
@@ -302,8 +302,7 @@ impl MapClimate {
         let s = annual.sample_at(year_fraction);
         let flux = annual.s0_w_m2 / (s.distance_factor * s.distance_factor);
         let spec = &self.spec;
-        let kappa = spec.diurnal_damping_w_m2_per_k
-            / (TAU / solar_day_s * spec.surface_heat_capacity_j_m2_per_k);
+        let kappa = spec.diurnal_kappa(solar_day_s);
         let response =
             DiurnalResponse::new(s.declination_rad, spec.diurnal_damping_w_m2_per_k, kappa);
         let iced = spec.ice_enabled && t < spec.ice_temperature_c;
