@@ -25,7 +25,10 @@ fn fails_cleanly(args: &[&str]) -> String {
     let out = insola(args);
     let err = String::from_utf8_lossy(&out.stderr).to_string();
     assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
-    assert!(!err.is_empty() && !err.contains("panicked"), "{args:?}: {err}");
+    assert!(
+        !err.is_empty() && !err.contains("panicked"),
+        "{args:?}: {err}"
+    );
     err
 }
 
@@ -73,7 +76,10 @@ fn heat_map_png_has_its_legend_and_labels_and_differs_by_quantity() {
         // its ticks right of it, the footnote at the bottom.
         assert!(inked(img, (86, 10), (600, 34)) > 200, "title");
         assert!(inked(img, (10, 96), (80, 466)) > 300, "latitude labels");
-        assert!(inked(img, (86, 470), (806, 510)) > 300, "time labels and description");
+        assert!(
+            inked(img, (86, 470), (806, 510)) > 300,
+            "time labels and description"
+        );
         assert!(inked(img, (840, 96), (858, 466)) > 18 * 360, "colour bar");
         assert!(inked(img, (860, 96), (950, 466)) > 100, "colour bar ticks");
         assert!(inked(img, (86, 516), (700, 540)) > 100, "footnote");
@@ -111,7 +117,10 @@ fn svg_is_well_formed_with_text_and_an_embedded_field() {
     assert!(text.contains("href=\"data:image/png;base64,"));
     assert!(text.matches("<rect").count() < 100);
     // Every element that opens is closed: as many `<text` as `</text>`.
-    assert_eq!(text.matches("<text").count(), text.matches("</text>").count());
+    assert_eq!(
+        text.matches("<text").count(),
+        text.matches("</text>").count()
+    );
     fails_cleanly(&[
         "map",
         "calvenne",
@@ -143,12 +152,25 @@ fn year_chart_draws_three_panels() {
     assert!(has([196, 128, 24], 96, 246));
     assert!(has([52, 96, 168], 280, 430));
     assert!(has([176, 52, 60], 464, 614));
-    assert!(inked(&img, (10, 96), (90, 614)) > 500, "value labels and units");
+    assert!(
+        inked(&img, (10, 96), (90, 614)) > 500,
+        "value labels and units"
+    );
     let svg = tmp("year.svg");
-    ok(&["year", "oromar", "--lat", "30", "--png", svg.to_str().unwrap()]);
+    ok(&[
+        "year",
+        "oromar",
+        "--lat",
+        "30",
+        "--png",
+        svg.to_str().unwrap(),
+    ]);
     let text = std::fs::read_to_string(&svg).unwrap();
     assert!(text.starts_with("<svg") && text.contains("noon altitude, degrees"));
-    let locked = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/worlds/tethmoor.world.ron");
+    let locked = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/tests/worlds/tethmoor.world.ron"
+    );
     let err = fails_cleanly(&["year", locked, "--lat", "0", "--png", png.to_str().unwrap()]);
     assert!(err.contains("tidally locked"), "{err}");
 }
@@ -172,7 +194,10 @@ fn analemma_is_a_closed_figure_in_the_sky() {
     assert!(inked(&img, (100, 566), (900, 610)) > 300, "azimuth labels");
     assert!(inked(&img, (10, 80), (96, 560)) > 300, "altitude labels");
     // A locked world's star only wobbles: still a figure, one sample per standard day.
-    let locked = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/worlds/tethmoor.world.ron");
+    let locked = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/tests/worlds/tethmoor.world.ron"
+    );
     let svg = tmp("analemma.svg");
     ok(&[
         "sky",

@@ -30,7 +30,10 @@ fn fails_cleanly(args: &[&str]) -> String {
     let out = insola(args);
     let err = String::from_utf8_lossy(&out.stderr).to_string();
     assert_eq!(out.status.code(), Some(2), "{args:?}: {err}");
-    assert!(!err.is_empty() && !err.contains("panicked"), "{args:?}: {err}");
+    assert!(
+        !err.is_empty() && !err.contains("panicked"),
+        "{args:?}: {err}"
+    );
     err
 }
 
@@ -120,16 +123,17 @@ fn map_over_a_png_mask_draws_the_coast_and_the_continent_swings_more_than_the_se
     // open sea at the same latitude.
     let img = image::open(&png).unwrap().to_rgb8();
     assert_eq!(img.dimensions(), (960, 560));
-    let dark = |x0: u32, x1: u32| {
-        (x0..x1).any(|x| img.get_pixel(x, 196).0.iter().all(|&c| c < 40))
-    };
+    let dark = |x0: u32, x1: u32| (x0..x1).any(|x| img.get_pixel(x, 196).0.iter().all(|&c| c < 40));
     assert!(dark(322, 330), "coast at 60° W");
     assert!(!dark(600, 640), "no coast at 80°–100° E");
 }
 
 #[test]
 fn map_over_the_demo_layout_and_the_all_sea_map() {
-    let layout = concat!(env!("CARGO_MANIFEST_DIR"), "/../../assets/worlds/verdance.land.ron");
+    let layout = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/../../assets/worlds/verdance.land.ron"
+    );
     let csv = tmp("zones.csv");
     ok(&[
         "map",
@@ -147,7 +151,10 @@ fn map_over_the_demo_layout_and_the_all_sea_map() {
     // The Pale Cap ice sheet over the south pole, and sea that never freezes.
     assert!(text.contains("lasting ice") && text.contains("never freezes"));
     // A locked world over a planet-wide sea: hot under the star, frozen behind it.
-    let locked = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/worlds/tethmoor.world.ron");
+    let locked = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/tests/worlds/tethmoor.world.ron"
+    );
     let svg = tmp("locked.svg");
     let mean = tmp("locked.csv");
     ok(&[
@@ -174,15 +181,46 @@ fn bad_land_arguments_fail_cleanly() {
     let p = png.to_str().unwrap();
     let m = mask();
     let m = m.to_str().unwrap();
-    let e = fails_cleanly(&["map", "verdance", "--land", "/no/such.png", "--quantity", "temperature", "--png", p]);
+    let e = fails_cleanly(&[
+        "map",
+        "verdance",
+        "--land",
+        "/no/such.png",
+        "--quantity",
+        "temperature",
+        "--png",
+        p,
+    ]);
     assert!(e.contains("--land"), "{e}");
-    fails_cleanly(&["map", "verdance", "--land", "mask.txt", "--quantity", "temperature", "--png", p]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--land",
+        "mask.txt",
+        "--quantity",
+        "temperature",
+        "--png",
+        p,
+    ]);
     let garbage = tmp("garbage.png");
     std::fs::write(&garbage, b"not a picture").unwrap();
     let g = garbage.to_str().unwrap();
-    fails_cleanly(&["map", "verdance", "--land", g, "--quantity", "temperature", "--png", p]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--land",
+        g,
+        "--quantity",
+        "temperature",
+        "--png",
+        p,
+    ]);
     let bad_ron = tmp("bad.land.ron");
-    std::fs::write(&bad_ron, "(shapes: [(kind: Land, outline: Polygon([(0, 0), (1, 1)]))])").unwrap();
+    std::fs::write(
+        &bad_ron,
+        "(shapes: [(kind: Land, outline: Polygon([(0, 0), (1, 1)]))])",
+    )
+    .unwrap();
     let e = fails_cleanly(&[
         "map",
         "verdance",
@@ -196,9 +234,38 @@ fn bad_land_arguments_fail_cleanly() {
     assert!(e.contains("3 points"), "{e}");
     let e = fails_cleanly(&["map", "verdance", "--quantity", "zones", "--png", p]);
     assert!(e.contains("--land"), "{e}");
-    fails_cleanly(&["map", "verdance", "--land", m, "--quantity", "insolation", "--png", p]);
-    fails_cleanly(&["map", "verdance", "--land", m, "--quantity", "temperature", "--grid", "2x2", "--png", p]);
-    fails_cleanly(&["map", "verdance", "--quantity", "temperature", "--day", "10", "--png", p]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--land",
+        m,
+        "--quantity",
+        "insolation",
+        "--png",
+        p,
+    ]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--land",
+        m,
+        "--quantity",
+        "temperature",
+        "--grid",
+        "2x2",
+        "--png",
+        p,
+    ]);
+    fails_cleanly(&[
+        "map",
+        "verdance",
+        "--quantity",
+        "temperature",
+        "--day",
+        "10",
+        "--png",
+        p,
+    ]);
     fails_cleanly(&["climate", "verdance", "--land", "/no/such.ron"]);
 }
 
@@ -206,7 +273,9 @@ fn bad_land_arguments_fail_cleanly() {
 fn climate_prints_land_and_sea_apart() {
     let mask = mask();
     let m = mask.to_str().unwrap();
-    let v = json(&["climate", "verdance", "--land", m, "--grid", "48x24", "--json"]);
+    let v = json(&[
+        "climate", "verdance", "--land", m, "--grid", "48x24", "--json",
+    ]);
     let ls = &v["land_sea"];
     let land = ls["land"]["area_fraction"].as_f64().unwrap();
     // Area fractions are exact for a mask whose pixels line up with the grid's longitudes
@@ -227,16 +296,27 @@ fn climate_prints_land_and_sea_apart() {
 
 #[test]
 fn check_warns_from_the_map_climate_saying_what_from() {
-    let locked = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/worlds/tethmoor.world.ron");
+    let locked = concat!(
+        env!("CARGO_MANIFEST_DIR"),
+        "/tests/worlds/tethmoor.world.ron"
+    );
     let v = json(&["check", locked, "--json"]);
     let h = v["habitability"].as_array().unwrap();
     assert!(!h.is_empty(), "{v}");
     for f in h {
         assert!(!f["message"].as_str().unwrap().is_empty());
-        assert!(f["basis"].as_str().unwrap().contains("map climate over all sea"));
+        assert!(
+            f["basis"]
+                .as_str()
+                .unwrap()
+                .contains("map climate over all sea")
+        );
     }
     // Lasting ice on the night side.
-    assert!(h.iter().any(|f| f["finding"].get("MostlyIce").is_some()), "{h:?}");
+    assert!(
+        h.iter().any(|f| f["finding"].get("MostlyIce").is_some()),
+        "{h:?}"
+    );
     let text = ok(&["check", locked]);
     assert!(text.contains("warning: habitability:") && text.contains("(from "));
     // A side-rolling world no longer gets a bare warning for its tilt; a temperate one, none.
@@ -246,6 +326,19 @@ fn check_warns_from_the_map_climate_saying_what_from() {
     assert!(text.contains("habitability     no warnings from the map climate over all sea"));
     // Over land: the growing season counts too, and the land file is named.
     let m = mask();
-    let v = json(&["check", "verdance", "--land", m.to_str().unwrap(), "--grid", "48x24", "--json"]);
-    assert!(v["habitability_from"].as_str().unwrap().contains("mask.png"));
+    let v = json(&[
+        "check",
+        "verdance",
+        "--land",
+        m.to_str().unwrap(),
+        "--grid",
+        "48x24",
+        "--json",
+    ]);
+    assert!(
+        v["habitability_from"]
+            .as_str()
+            .unwrap()
+            .contains("mask.png")
+    );
 }

@@ -9,8 +9,7 @@
 
 use insola::Planet;
 use insola::map_climate::{
-    HabitabilityFinding, MapClimate, MapGrid, SLOW_DAY_STEPS, SurfaceKind, SurfaceMap,
-    ZoneOptions,
+    HabitabilityFinding, MapClimate, MapGrid, SLOW_DAY_STEPS, SurfaceKind, SurfaceMap, ZoneOptions,
 };
 use serde::Serialize;
 

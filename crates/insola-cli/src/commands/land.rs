@@ -59,7 +59,8 @@ fn from_png(path: &str) -> Result<SurfaceMap, String> {
         .pixels()
         .map(|p| p.0[1] >= 128 && p.0[0] < LAND_BELOW_LUMA)
         .collect();
-    SurfaceMap::from_land_mask(w as usize, h as usize, &land).map_err(|e| format!("--land {path}: {e}"))
+    SurfaceMap::from_land_mask(w as usize, h as usize, &land)
+        .map_err(|e| format!("--land {path}: {e}"))
 }
 
 fn from_layout(path: &str) -> Result<SurfaceMap, String> {

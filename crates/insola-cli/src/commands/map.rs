@@ -251,10 +251,6 @@ fn round_up(v: f64, step: f64) -> f64 {
     (v / step).ceil() * step
 }
 
-fn round_down(v: f64, step: f64) -> f64 {
-    (v / step).floor() * step
-}
-
 /// The heat map of a sampled field.
 fn heat_map<'a>(p: &Planet, q: Quantity, field: &'a Field) -> HeatMap<'a> {
     let st = style(p, q, field);
@@ -400,7 +396,10 @@ pub fn run(args: Args) -> Result<(), String> {
         ));
     }
     if args.day.is_some() {
-        return Err("--day picks the time of a latitude × longitude map: give --land FILE or --all-sea".into());
+        return Err(
+            "--day picks the time of a latitude × longitude map: give --land FILE or --all-sea"
+                .into(),
+        );
     }
     let field = sample(&p, args.quantity, args.lats, args.days)?;
     let st = style(&p, args.quantity, &field);

@@ -198,7 +198,10 @@ pub fn run(
             ),
             note: note(&c, req.land.is_some()),
             colour_at: &colour_at,
-            land_at: req.land.is_some().then_some(&land_at as &dyn Fn(f64, f64) -> bool),
+            land_at: req
+                .land
+                .is_some()
+                .then_some(&land_at as &dyn Fn(f64, f64) -> bool),
             key,
             lat_lines: zone_lines(z.tropic_lat_deg, z.polar_circle_lat_deg),
         };
@@ -257,7 +260,10 @@ fn cell_centres(grid: &MapGrid) -> Vec<(f64, f64)> {
     let lons = grid.lon_centres_rad();
     lats.iter()
         .rev()
-        .flat_map(|lat| lons.iter().map(move |lon| (lat * 180.0 / PI, lon * 180.0 / PI)))
+        .flat_map(|lat| {
+            lons.iter()
+                .map(move |lon| (lat * 180.0 / PI, lon * 180.0 / PI))
+        })
         .collect()
 }
 

@@ -3,10 +3,10 @@
 //! (PNG or SVG by the file's extension; see [`analemma`]).
 
 use insola::calendar::CalendarDate;
-use insola::lighting::LightMode;
-use insola::{Place, Planet};
 use insola::constants::SECONDS_PER_DAY;
+use insola::lighting::LightMode;
 use insola::star_track::TrackTimes;
+use insola::{Place, Planet};
 use serde::Serialize;
 
 use super::plot::analemma::Analemma;
@@ -237,7 +237,10 @@ pub fn analemma(p: &Planet, t0_s: f64, place: Place) -> Result<Analemma, String>
     let lon = place.longitude_rad.to_degrees();
     let lmt_h = p.local_mean_time_fraction(t0_s, place.longitude_rad) * p.day_s() / 3600.0;
     let when = if locked {
-        format!("every standard day (24 h) for one year from day {:.2}", p.solar_days_since_zero(t0_s))
+        format!(
+            "every standard day (24 h) for one year from day {:.2}",
+            p.solar_days_since_zero(t0_s)
+        )
     } else {
         format!(
             "at local mean time {} every day for one year from day {:.2}",
@@ -246,10 +249,7 @@ pub fn analemma(p: &Planet, t0_s: f64, place: Place) -> Result<Analemma, String>
         )
     };
     Ok(Analemma {
-        title: format!(
-            "{}: the star {when}",
-            p.spec().name
-        ),
+        title: format!("{}: the star {when}", p.spec().name),
         subtitle: format!(
             "seen from {}, {}; {}",
             lat_text(lat),

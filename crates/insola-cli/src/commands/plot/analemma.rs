@@ -52,10 +52,7 @@ fn ranges(samples: &[Sample]) -> ((f64, f64), (f64, f64)) {
     let (az_mid, alt_mid) = (0.5 * (az.0 + az.1), 0.5 * (alt.0 + alt.1));
     let (w, h) = (f64::from(PLOT.2), f64::from(PLOT.3));
     // Degrees per pixel: the larger need of the two axes, with 10% margin, at least 2°/100 px.
-    let per_px = ((az.1 - az.0) / w)
-        .max((alt.1 - alt.0) / h)
-        .max(0.02)
-        * 1.2;
+    let per_px = ((az.1 - az.0) / w).max((alt.1 - alt.0) / h).max(0.02) * 1.2;
     (
         (az_mid - 0.5 * per_px * w, az_mid + 0.5 * per_px * w),
         (alt_mid - 0.5 * per_px * h, alt_mid + 0.5 * per_px * h),
@@ -115,7 +112,10 @@ impl Chart for Analemma {
             closed.push(first);
         }
         chart
-            .draw_series(LineSeries::new(closed, RGBColor(150, 140, 130).stroke_width(1)))
+            .draw_series(LineSeries::new(
+                closed,
+                RGBColor(150, 140, 130).stroke_width(1),
+            ))
             .map_err(fail)?;
         // Dots coloured through the year (dark at the start, pale at the end).
         chart

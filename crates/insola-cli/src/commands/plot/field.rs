@@ -66,10 +66,9 @@ impl FieldFrame<'_> {
         for (px, py, p) in img.enumerate_pixels_mut() {
             *p = image::Rgb(colour_at(px, py));
         }
-        let area = root.clone().shrink(
-            (x - Y_LABELS as i32, y),
-            (w + Y_LABELS, h + X_LABELS),
-        );
+        let area = root
+            .clone()
+            .shrink((x - Y_LABELS as i32, y), (w + Y_LABELS, h + X_LABELS));
         let (lo, hi) = self.x_range;
         let mut chart = ChartBuilder::on(&area)
             .y_label_area_size(Y_LABELS)
@@ -137,8 +136,11 @@ pub fn dashed<DB: DrawingBackend>(
     while t < len {
         let end = (t + dash).min(len);
         let colour = if dark { BLACK } else { WHITE };
-        root.draw(&PathElement::new(vec![at(t), at(end)], colour.stroke_width(1)))
-            .map_err(fail)?;
+        root.draw(&PathElement::new(
+            vec![at(t), at(end)],
+            colour.stroke_width(1),
+        ))
+        .map_err(fail)?;
         dark = !dark;
         t = end;
     }

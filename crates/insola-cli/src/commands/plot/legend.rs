@@ -45,7 +45,13 @@ pub fn colour_bar<DB: DrawingBackend>(
             INK.stroke_width(1),
         ))
         .map_err(fail)?;
-        text::put(root, &number_text(v), (x + wi + 8, ty), &label, Anchor::Left)?;
+        text::put(
+            root,
+            &number_text(v),
+            (x + wi + 8, ty),
+            &label,
+            Anchor::Left,
+        )?;
     }
     text::put(
         root,

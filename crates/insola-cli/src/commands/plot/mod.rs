@@ -119,8 +119,20 @@ pub fn page<DB: DrawingBackend>(
 ) -> Result<(), String> {
     root.fill(&BACKGROUND).map_err(fail)?;
     let (_, h) = root.dim_in_pixel();
-    text::put(root, title, (x, 12), &text::bold(20.0, INK), text::Anchor::TopLeft)?;
-    text::put(root, subtitle, (x, 40), &text::style(14.0, SOFT), text::Anchor::TopLeft)?;
+    text::put(
+        root,
+        title,
+        (x, 12),
+        &text::bold(20.0, INK),
+        text::Anchor::TopLeft,
+    )?;
+    text::put(
+        root,
+        subtitle,
+        (x, 40),
+        &text::style(14.0, SOFT),
+        text::Anchor::TopLeft,
+    )?;
     text::put(
         root,
         note,

@@ -170,11 +170,7 @@ impl DrawingBackend for RasterSvg<'_> {
             alpha: MARKER_OPACITY,
             rgb,
         };
-        self.inner.draw_rect(
-            pos,
-            (pos.0 + w as i32, pos.1 + h as i32),
-            &marker,
-            true,
-        )
+        self.inner
+            .draw_rect(pos, (pos.0 + w as i32, pos.1 + h as i32), &marker, true)
     }
 }

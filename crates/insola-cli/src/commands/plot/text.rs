@@ -19,8 +19,7 @@ pub fn register_fonts() -> Result<(), String> {
         let bad = |_| "the bundled DejaVu Sans font did not load".to_string();
         plotters::style::register_font(FAMILY, FontStyle::Normal, dejavu::sans::regular())
             .map_err(bad)?;
-        plotters::style::register_font(FAMILY, FontStyle::Bold, dejavu::sans::bold())
-            .map_err(bad)
+        plotters::style::register_font(FAMILY, FontStyle::Bold, dejavu::sans::bold()).map_err(bad)
     })
     .clone()
 }
@@ -45,30 +44,18 @@ pub fn bold(size: f64, colour: RGBColor) -> TextStyle<'static> {
 pub enum Anchor {
     /// Top-left corner.
     TopLeft,
-    /// Middle of the top edge.
-    TopCentre,
-    /// Top-right corner.
-    TopRight,
     /// Middle of the left edge.
     Left,
-    /// Middle of the right edge.
-    Right,
     /// Middle of the bottom edge.
     BottomCentre,
-    /// Centre.
-    Centre,
 }
 
 impl Anchor {
     fn pos(self) -> Pos {
         let (h, v) = match self {
             Anchor::TopLeft => (HPos::Left, VPos::Top),
-            Anchor::TopCentre => (HPos::Center, VPos::Top),
-            Anchor::TopRight => (HPos::Right, VPos::Top),
             Anchor::Left => (HPos::Left, VPos::Center),
-            Anchor::Right => (HPos::Right, VPos::Center),
             Anchor::BottomCentre => (HPos::Center, VPos::Bottom),
-            Anchor::Centre => (HPos::Center, VPos::Center),
         };
         Pos::new(h, v)
     }
@@ -83,20 +70,6 @@ pub fn put<DB: DrawingBackend>(
     anchor: Anchor,
 ) -> Result<(), String> {
     let st = style.pos(anchor.pos());
-    root.draw(&Text::new(s.to_string(), (x, y), st))
-        .map_err(super::fail)
-}
-
-/// Draws `s` reading bottom to top, centred on `(x, y)`.
-pub fn put_up<DB: DrawingBackend>(
-    root: &DrawingArea<DB, Shift>,
-    s: &str,
-    (x, y): (i32, i32),
-    style: &TextStyle<'_>,
-) -> Result<(), String> {
-    let st = style
-        .transform(FontTransform::Rotate270)
-        .pos(Anchor::Centre.pos());
     root.draw(&Text::new(s.to_string(), (x, y), st))
         .map_err(super::fail)
 }
