@@ -102,13 +102,28 @@ impl FieldFrame<'_> {
             INK.stroke_width(1),
         ))
         .map_err(fail)?;
+        for (lat, _) in &self.lat_lines {
+            let ly = self.y_px(*lat);
+            dashed(root, (x, ly), (x + w as i32 - 1, ly), 6)?;
+        }
+        Ok(())
+    }
+
+    /// Labels the latitude lines at the right end, on boxes (drawn last, over everything).
+    /// A label sits on the poleward side of its line, or the other side near the frame.
+    pub fn draw_lat_labels<DB: DrawingBackend>(
+        &self,
+        root: &DrawingArea<DB, Shift>,
+    ) -> Result<(), String> {
+        let (x, y, w, h) = self.rect;
         let small = text::style(12.0, INK);
         for (lat, name) in &self.lat_lines {
             let ly = self.y_px(*lat);
-            dashed(root, (x, ly), (x + w as i32 - 1, ly), 6)?;
             let tw = text::width(name, &small);
-            // Label just above the line (below it for the southern lines), at the right.
-            let ty = if *lat > 0.0 { ly - 15 } else { ly + 4 };
+            let room_above = ly - y >= 20;
+            let room_below = y + h as i32 - ly >= 20;
+            let above = if *lat > 0.0 { room_above } else { !room_below };
+            let ty = if above { ly - 16 } else { ly + 4 };
             text::label(
                 root,
                 name,

@@ -98,6 +98,7 @@ impl Chart for HeatMap<'_> {
             let row = if n % 2 == 0 { y0 - 7 } else { y0 - 21 };
             top_label(root, name, (x, row), (x0, x0 + w as i32))?;
         }
+        frame.draw_lat_labels(root)?;
         legend::colour_bar(
             root,
             (x0 + w as i32 + 34, y0, 18, h),

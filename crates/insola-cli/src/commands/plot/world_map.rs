@@ -87,6 +87,7 @@ impl Chart for WorldMap<'_> {
             let (lon, lat) = frame.value_at(px, py);
             (self.colour_at)(lat, lon)
         })?;
+        frame.draw_lat_labels(root)?;
         let key_x = FIELD.0 + w as i32 + 34;
         match &self.key {
             Key::Bar { scale, unit } => {
