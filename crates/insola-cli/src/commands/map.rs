@@ -1,11 +1,13 @@
 //! `insola map WORLD --quantity insolation|daylight|temperature --png FILE [--csv FILE]`:
-//! a latitude × time-of-year heat map.
+//! a latitude × time-of-year heat map; with `--land FILE` or `--all-sea`, a latitude ×
+//! longitude map of the two-dimensional climate instead (see [`super::map_land`]).
 //!
-//! The picture is always 960 × 540 px: title, a 720 × 380 px map (latitude −90° at the bottom,
-//! +90° at the top; time of year left to right from the world's time zero), the equinoxes and
-//! solstices marked along the top, the tropics and polar circles as labelled dashed lines, and a
-//! colour scale with units on the right. `--lats` and `--days` set the sample grid (each sample
-//! is drawn as a block of pixels), not the picture size.
+//! The picture (PNG or SVG by the file's extension, drawn by [`super::plot::heat_map`]) is
+//! always 960 × 540 px: title, a 720 × 370 px map (latitude −90° at the bottom, +90° at the top;
+//! time of year left to right from the world's time zero), the equinoxes and solstices marked
+//! along the top, the tropics and polar circles as labelled dashed lines, and a colour scale
+//! with units on the right. `--lats` and `--days` set the sample grid (each sample is drawn as a
+//! block of pixels), not the picture size.
 //!
 //! Quantities:
 //! * `insolation` — daily-mean sunlight at the top of the atmosphere, W/m² (Berger 1978).

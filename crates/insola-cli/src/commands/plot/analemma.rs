@@ -125,13 +125,17 @@ impl Chart for Analemma {
             }))
             .map_err(fail)?;
         let st = text::style(12.0, INK);
+        // Labels point away from the figure's middle, so two marks close together (the
+        // equinoxes often are) label to opposite sides.
+        let middle = chart.backend_coord(&(0.5 * (x0 + x1), 0.5 * (y0 + y1))).0;
         for (s, name) in &self.marks {
             chart
                 .draw_series(std::iter::once(Circle::new(*s, 6, INK.stroke_width(2))))
                 .map_err(fail)?;
             let (cx, cy) = chart.backend_coord(s);
             let w = text::width(name, &st);
-            let x = if cx < px + pw as i32 - 150 {
+            let right = cx >= middle;
+            let x = if (right && cx + 11 + w < px + pw as i32) || cx - 11 - w < px {
                 cx + 11
             } else {
                 cx - 11 - w

@@ -8,7 +8,7 @@ use plotters::prelude::*;
 use super::axis::Ticked;
 use super::field::top_label;
 use super::text;
-use super::{Chart, INK, fail, number_text};
+use super::{Chart, INK, SOFT, fail, number_text};
 use crate::commands::colour_map::nice_ticks;
 
 const SIZE: (u32, u32) = (960, 720);
@@ -119,6 +119,15 @@ impl Chart for YearChart {
                     let x = chart.backend_coord(&(*day, hi)).0;
                     top_label(root, name, (x, top - 4), (PLOT_X, PLOT_X + PLOT_W as i32))?;
                 }
+            }
+            if lo < 0.0 && hi > 0.0 {
+                // Zero (the horizon, for the noon altitude) as a solid line.
+                chart
+                    .draw_series(LineSeries::new(
+                        [(0.0, 0.0), (self.x_max, 0.0)],
+                        SOFT.stroke_width(1),
+                    ))
+                    .map_err(fail)?;
             }
             let points = self.days.iter().copied().zip(panel.values.iter().copied());
             chart
