@@ -337,3 +337,35 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     Ok(())
 }
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn earth_noon_analemma_spans_twice_the_obliquity() {
+        // Outside check: at local noon the star's altitude is 90° − φ + δ, and over a year δ
+        // runs between ±ε, so the noon analemma is 2ε tall and tops out at 90° − φ + ε
+        // (textbook spherical astronomy, e.g. Meeus, Astronomical Algorithms, ch. 13; from
+        // memory). ε is the Earth reference world's obliquity, 23.4392911° (84381.448″, the
+        // J2000 value of the IAU 1976 precession; from memory).
+        // Mean noon differs from true noon by the equation of time (under 17 min), which
+        // lowers the altitude by well under 0.3° at 40° N.
+        let p = crate::worlds::load("earth-reference").unwrap();
+        let eps = p.spec().spin.obliquity_deg;
+        let place = Place::from_degrees(40.0, 0.0).unwrap();
+        let frac0 = p.local_mean_time_fraction(0.0, 0.0);
+        let noon = (0.5 - frac0).rem_euclid(1.0) * p.day_s();
+        let a = analemma(&p, noon, place).unwrap();
+        let alt = |f: fn(f64, f64) -> f64, start: f64| {
+            a.samples.iter().map(|s| s.1).fold(start, f)
+        };
+        let (lo, hi) = (alt(f64::min, 90.0), alt(f64::max, -90.0));
+        assert!((hi - lo - 2.0 * eps).abs() < 0.3, "{lo} {hi}");
+        assert!((hi - (50.0 + eps)).abs() < 0.3, "{hi}");
+        // One sample a day for a year.
+        assert!((a.samples.len() as f64 - 365.25).abs() < 1.0);
+        // The figure stays around the south at noon in the north.
+        assert!(a.samples.iter().all(|s| (s.0 - 180.0).abs() < 10.0));
+    }
+}
