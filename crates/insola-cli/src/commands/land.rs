@@ -91,8 +91,17 @@ pub fn parse_grid(text: &str) -> Result<MapGrid, String> {
             .parse::<usize>()
             .map_err(|_| bad(format!("`{s}` is not a whole number")))
     };
-    MapGrid::new(num(c)?, num(r)?).map_err(|e| bad(e.to_string()))
+    let (c, r) = (num(c)?, num(r)?);
+    if c.saturating_mul(r) > MAX_GRID_CELLS {
+        return Err(bad(format!(
+            "{c} × {r} cells; at most {MAX_GRID_CELLS} (e.g. 512x256): the year of every cell is kept in memory"
+        )));
+    }
+    MapGrid::new(c, r).map_err(|e| bad(e.to_string()))
 }
+
+/// Most model cells the CLI runs: 512 × 256, whose stored year at 180 steps is about 94 MB.
+pub const MAX_GRID_CELLS: usize = 512 * 256;
 
 #[cfg(test)]
 mod tests {
@@ -102,7 +111,7 @@ mod tests {
     fn grids_parse_and_bad_ones_say_why() {
         let g = parse_grid("64x32").unwrap();
         assert_eq!((g.columns(), g.row_count()), (64, 32));
-        for bad in ["64", "ax32", "64x", "2x2", "64x-3"] {
+        for bad in ["64", "ax32", "64x", "2x2", "64x-3", "4096x2000"] {
             assert!(parse_grid(bad).unwrap_err().contains("--grid"), "{bad}");
         }
     }

@@ -354,9 +354,10 @@ pub struct MapReport {
     pub min: f64,
     /// Largest sampled value.
     pub max: f64,
-    /// Latitude samples.
+    /// Latitude samples (model rows for a latitude × longitude map).
     pub lats: usize,
-    /// Time samples.
+    /// Time samples (0 for a latitude × longitude map, which shows one time or the year's
+    /// statistics).
     pub days: usize,
     /// PNG written, if any.
     pub png: Option<String>,
