@@ -14,6 +14,7 @@ pub mod land;
 pub mod list;
 pub mod map;
 pub mod map_land;
+pub mod map_zonal;
 pub mod output;
 pub mod plot;
 pub mod sky;

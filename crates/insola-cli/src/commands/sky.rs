@@ -357,9 +357,7 @@ mod tests {
         let frac0 = p.local_mean_time_fraction(0.0, 0.0);
         let noon = (0.5 - frac0).rem_euclid(1.0) * p.day_s();
         let a = analemma(&p, noon, place).unwrap();
-        let alt = |f: fn(f64, f64) -> f64, start: f64| {
-            a.samples.iter().map(|s| s.1).fold(start, f)
-        };
+        let alt = |f: fn(f64, f64) -> f64, start: f64| a.samples.iter().map(|s| s.1).fold(start, f);
         let (lo, hi) = (alt(f64::min, 90.0), alt(f64::max, -90.0));
         assert!((hi - lo - 2.0 * eps).abs() < 0.3, "{lo} {hi}");
         assert!((hi - (50.0 + eps)).abs() < 0.3, "{hi}");

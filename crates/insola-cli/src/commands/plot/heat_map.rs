@@ -9,7 +9,7 @@ use plotters::prelude::*;
 use super::field::{FieldFrame, dashed, top_label};
 use super::{Chart, legend, number_text};
 use crate::commands::colour_map::{Scale, nice_ticks};
-use crate::commands::map::Field;
+use crate::commands::map_zonal::Field;
 
 const SIZE: (u32, u32) = (960, 540);
 const FIELD: (i32, i32, u32, u32) = (86, 96, 720, 370);
