@@ -77,10 +77,10 @@ pub fn run(
         (p.day_s(), "local day")
     };
     let (fraction, when) = match req.day {
-        Some(d) if d.is_finite() => (
-            (d * day_len_s / p.year_s()).rem_euclid(1.0),
-            format!("{day_word} {d}"),
-        ),
+        Some(d) if d.is_finite() => {
+            let f = (d * day_len_s / p.year_s()).rem_euclid(1.0);
+            (f, format!("{day_word} {d} ({})", season_words(p, f)))
+        }
         Some(d) => return Err(format!("--day {d} is not a finite number")),
         None => {
             let t = p.season_marks_after(0.0).northern_solstice_s;
@@ -217,6 +217,18 @@ pub fn run(
         max,
         surface: surface_name,
     })
+}
+
+/// The northern season at year fraction `f`, from the star's ecliptic longitude (0° at the
+/// northward equinox).
+fn season_words(p: &Planet, f: f64) -> &'static str {
+    let lon = p
+        .star_instant(f * p.year_s())
+        .ecliptic_longitude_rad
+        .to_degrees()
+        .rem_euclid(360.0);
+    ["northern spring", "northern summer", "northern autumn", "northern winter"]
+        [((lon / 90.0) as usize).min(3)]
 }
 
 /// The name of a quantity on the command line.
