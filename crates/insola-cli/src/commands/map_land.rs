@@ -227,8 +227,12 @@ fn season_words(p: &Planet, f: f64) -> &'static str {
         .ecliptic_longitude_rad
         .to_degrees()
         .rem_euclid(360.0);
-    ["northern spring", "northern summer", "northern autumn", "northern winter"]
-        [((lon / 90.0) as usize).min(3)]
+    [
+        "northern spring",
+        "northern summer",
+        "northern autumn",
+        "northern winter",
+    ][((lon / 90.0) as usize).min(3)]
 }
 
 /// The name of a quantity on the command line.
