@@ -219,3 +219,46 @@ fn analemma_is_a_closed_figure_in_the_sky() {
     fails_cleanly(&["sky", "verdance", "--lat", "52", "--day", "0", "--png", p]);
     fails_cleanly(&["sky", "verdance", "--lat", "52", "--day", "0", "--analemma"]);
 }
+
+#[test]
+fn charts_of_the_reference_world_carry_the_caution() {
+    let svg = tmp("earth.svg");
+    let s = svg.to_str().unwrap();
+    for args in [
+        vec![
+            "map",
+            "earth-reference",
+            "--quantity",
+            "insolation",
+            "--lats",
+            "18",
+            "--days",
+            "24",
+            "--png",
+            s,
+        ],
+        vec!["year", "earth-reference", "--lat", "40", "--png", s],
+        vec![
+            "sky",
+            "earth-reference",
+            "--lat",
+            "40",
+            "--day",
+            "0.5",
+            "--analemma",
+            "--png",
+            s,
+        ],
+    ] {
+        ok(&args);
+        let text = std::fs::read_to_string(&svg).unwrap();
+        assert!(text.contains("not for navigation"), "{args:?}");
+    }
+    // Invented worlds' charts do not.
+    ok(&["year", "verdance", "--lat", "40", "--png", s]);
+    assert!(
+        !std::fs::read_to_string(&svg)
+            .unwrap()
+            .contains("not for navigation")
+    );
+}

@@ -90,6 +90,18 @@ pub struct Args {
     json: bool,
 }
 
+/// A chart's footnote: `note`, and on a validation reference world the caution that its
+/// real-world numbers are not for real decisions.
+pub fn footnote(p: &Planet, note: &str) -> String {
+    if p.spec().reference {
+        format!(
+            "{note}\nA validation reference world. Insola's numbers are for games and invented worlds: not for navigation, solar engineering or sun-exposure decisions."
+        )
+    } else {
+        note.to_string()
+    }
+}
+
 /// The world's numbers under a chart's title.
 pub fn subtitle(p: &Planet) -> String {
     let s = &p.spec();

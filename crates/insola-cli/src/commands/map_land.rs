@@ -196,7 +196,7 @@ pub fn run(
                 super::map::subtitle(p),
                 land_words(&c, &surface_name)
             ),
-            note: note(&c, req.land.is_some()),
+            note: super::map::footnote(p, &note(&c, req.land.is_some())),
             colour_at: &colour_at,
             land_at: req
                 .land

@@ -202,7 +202,7 @@ pub fn heat_map<'a>(p: &Planet, q: Quantity, field: &'a Field) -> HeatMap<'a> {
         field,
         title: st.title,
         subtitle: subtitle(p),
-        note: st.note.to_string(),
+        note: super::map::footnote(p, st.note),
         unit: st.unit.to_string(),
         scale: st.scale,
         zero_line: q == Quantity::Temperature,

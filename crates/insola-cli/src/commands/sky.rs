@@ -256,8 +256,11 @@ pub fn analemma(p: &Planet, t0_s: f64, place: Place) -> Result<Analemma, String>
             lon_text(lon),
             super::map::subtitle(p)
         ),
-        note: format!(
-            "{count} samples, dark to pale through the year; geometric altitude without refraction. Circled: the days nearest the equinoxes and solstices."
+        note: super::map::footnote(
+            p,
+            &format!(
+                "{count} samples, dark to pale through the year; geometric altitude without refraction. Circled: the days nearest the equinoxes and solstices."
+            ),
         ),
         samples,
         marks,

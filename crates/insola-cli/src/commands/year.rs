@@ -122,7 +122,10 @@ fn chart(p: &Planet, place: Place, rows: &[YearRow]) -> Result<YearChart, String
             lon_text(lon)
         ),
         subtitle: super::map::subtitle(p),
-        note: "Daylight: star's centre above the standard rise altitude. Insolation: top of the atmosphere, mean over the local day.".into(),
+        note: super::map::footnote(
+            p,
+            "Daylight: star's centre above the standard rise altitude. Insolation: top of the atmosphere, mean over the local day.",
+        ),
         x_desc: format!(
             "local days since the first day of the year (day {first}); {:.1} days of {day_h:.1} h",
             rows.len()

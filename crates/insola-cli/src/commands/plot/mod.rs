@@ -109,7 +109,7 @@ pub fn blit<DB: DrawingBackend>(
 }
 
 /// Fills the page and draws the title (bold, top left at `x`), a subtitle under it and a
-/// footnote at the bottom.
+/// footnote at the bottom (a second line after a `\n` smaller, under the first).
 pub fn page<DB: DrawingBackend>(
     root: &DrawingArea<DB, Shift>,
     x: i32,
@@ -133,13 +133,32 @@ pub fn page<DB: DrawingBackend>(
         &text::style(14.0, SOFT),
         text::Anchor::TopLeft,
     )?;
-    text::put(
-        root,
-        note,
-        (x, h as i32 - 24),
-        &text::style(12.0, SOFT),
-        text::Anchor::TopLeft,
-    )
+    // A second line (the caution of a reference world) goes under the note, smaller.
+    match note.split_once('\n') {
+        None => text::put(
+            root,
+            note,
+            (x, h as i32 - 24),
+            &text::style(12.0, SOFT),
+            text::Anchor::TopLeft,
+        ),
+        Some((first, second)) => {
+            text::put(
+                root,
+                first,
+                (x, h as i32 - 28),
+                &text::style(12.0, SOFT),
+                text::Anchor::TopLeft,
+            )?;
+            text::put(
+                root,
+                second,
+                (x, h as i32 - 14),
+                &text::style(10.0, SOFT),
+                text::Anchor::TopLeft,
+            )
+        }
+    }
 }
 
 /// A latitude as text: `30°N`, `23.5°S`, `0°`.
