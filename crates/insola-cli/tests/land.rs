@@ -342,3 +342,90 @@ fn check_warns_from_the_map_climate_saying_what_from() {
             .contains("mask.png")
     );
 }
+
+#[test]
+fn a_world_file_may_name_its_land() {
+    // A copy of Tethmoor whose climate section names its land file, beside it.
+    let dir = tmp("own-land");
+    std::fs::create_dir_all(&dir).unwrap();
+    let src = concat!(env!("CARGO_MANIFEST_DIR"), "/tests/worlds/");
+    let world = std::fs::read_to_string(format!("{src}tethmoor.world.ron")).unwrap();
+    let world = world.replace(
+        "climate: (albedo_a0",
+        "climate: (land: \"continents.land.ron\", albedo_a0",
+    );
+    assert!(world.contains("continents.land.ron"));
+    std::fs::write(dir.join("tethmoor.world.ron"), world).unwrap();
+    std::fs::copy(
+        format!("{src}tethmoor.land.ron"),
+        dir.join("continents.land.ron"),
+    )
+    .unwrap();
+    let w = dir.join("tethmoor.world.ron");
+    let w = w.to_str().unwrap();
+    let csv = tmp("own-land.csv");
+    let v = json(&[
+        "map",
+        w,
+        "--quantity",
+        "zones",
+        "--grid",
+        "32x16",
+        "--csv",
+        csv.to_str().unwrap(),
+        "--json",
+    ]);
+    assert_eq!(v["surface"], "continents.land.ron");
+    let v = json(&["climate", w, "--grid", "32x16", "--json"]);
+    assert_eq!(v["land_sea"]["surface"], "continents.land.ron");
+    let v = json(&["check", w, "--grid", "32x16", "--json"]);
+    assert!(
+        v["habitability_from"]
+            .as_str()
+            .unwrap()
+            .contains("continents.land.ron")
+    );
+    // --no-land draws the zonal heat map; sunlight maps never take the land.
+    let png = tmp("own-land.png");
+    let p = png.to_str().unwrap();
+    let v = json(&[
+        "map",
+        w,
+        "--quantity",
+        "temperature",
+        "--no-land",
+        "--lats",
+        "18",
+        "--days",
+        "12",
+        "--png",
+        p,
+        "--json",
+    ]);
+    assert!(v["surface"].is_null());
+    let v = json(&[
+        "map",
+        w,
+        "--quantity",
+        "insolation",
+        "--lats",
+        "18",
+        "--days",
+        "12",
+        "--png",
+        p,
+        "--json",
+    ]);
+    assert!(v["surface"].is_null());
+    // A land file that is not there is an error naming it.
+    let broken = dir.join("broken.world.ron");
+    std::fs::write(
+        &broken,
+        std::fs::read_to_string(dir.join("tethmoor.world.ron"))
+            .unwrap()
+            .replace("continents.land.ron", "missing.land.ron"),
+    )
+    .unwrap();
+    let e = fails_cleanly(&["check", broken.to_str().unwrap()]);
+    assert!(e.contains("missing.land.ron"), "{e}");
+}

@@ -14,7 +14,8 @@ pub struct Args {
     #[arg(long)]
     json: bool,
     /// Compute the habitability warnings over this land file (a PNG mask, dark pixels land,
-    /// or a RON layout of shapes) instead of a planet-wide sea.
+    /// or a RON layout of shapes) instead of a planet-wide sea. Default: the land file the
+    /// world file names (`climate: (land: "…")`), if any.
     #[arg(long, value_name = "FILE")]
     land: Option<String>,
     /// With --land: the map model's grid, COLUMNSxROWS.
@@ -294,7 +295,11 @@ fn albedo_facts(p: &Planet) -> AlbedoFacts {
 pub fn run(args: Args) -> Result<(), String> {
     let p = crate::worlds::load(&args.world)?;
     let mut f = facts(&p);
-    let (found, from) = super::check_habitability::findings(&p, args.land.as_deref(), &args.grid)?;
+    let land = match &args.land {
+        Some(path) => Some(path.clone()),
+        None => crate::worlds::land_file(&args.world)?,
+    };
+    let (found, from) = super::check_habitability::findings(&p, land.as_deref(), &args.grid)?;
     for h in &found {
         f.warnings
             .push(format!("habitability: {} (from {})", h.message, h.basis));

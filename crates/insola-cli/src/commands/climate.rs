@@ -28,7 +28,8 @@ pub struct Args {
     #[arg(long, value_name = "FROM:TO:STEP", conflicts_with = "land")]
     sweep_obliquity: Option<String>,
     /// Also run the map climate over this land file (a PNG mask, dark pixels land, or a RON
-    /// layout of shapes) and print land and sea apart.
+    /// layout of shapes) and print land and sea apart. Default: the land file the world file
+    /// names (`climate: (land: "…")`), if any.
     #[arg(long, value_name = "FILE")]
     land: Option<String>,
     /// With --land: the map model's grid, COLUMNSxROWS.
@@ -290,7 +291,11 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     let c = crate::climate_setup::cycle_of(&p)?;
     let mut r = report(&p, &c);
-    if let Some(path) = &args.land {
+    let land = match &args.land {
+        Some(path) => Some(path.clone()),
+        None => crate::worlds::land_file(&args.world)?,
+    };
+    if let Some(path) = &land {
         r.land_sea = Some(super::climate_land::report(&p, path, &args.grid)?);
     }
     if args.json {

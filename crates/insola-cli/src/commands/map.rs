@@ -69,12 +69,17 @@ pub struct Args {
     #[arg(long, value_name = "FILE")]
     png: Option<String>,
     /// Map the two-dimensional climate over this land file: a PNG mask in equirectangular
-    /// projection (dark pixels are land) or a RON layout of shapes (`*.land.ron`).
+    /// projection (dark pixels are land) or a RON layout of shapes (`*.land.ron`). Default for
+    /// the temperature and land quantities: the land file the world file names
+    /// (`climate: (land: "…")`), if any.
     #[arg(long, value_name = "FILE", conflicts_with = "all_sea")]
     land: Option<String>,
     /// Map the two-dimensional climate over a planet-wide sea (no land file).
     #[arg(long)]
     all_sea: bool,
+    /// Ignore the land file the world file names (`climate: (land: "…")`): the zonal map.
+    #[arg(long, conflicts_with_all = ["land", "all_sea"])]
+    no_land: bool,
     /// With a surface and `--quantity temperature`: the time of year, in local days since time
     /// zero (standard days on a tidally locked world). Default: the northern solstice.
     #[arg(long, allow_hyphen_values = true)]
@@ -170,8 +175,20 @@ pub fn run(args: Args) -> Result<(), String> {
         return Err("nothing to write: give --png FILE and/or --csv FILE".into());
     }
     let p = crate::worlds::load(&args.world)?;
-    if args.land.is_some() || args.all_sea {
-        return run_surface(&args, &p);
+    // The world file's own land file counts as --land for the quantities that need a surface
+    // or depend on one (not for sunlight and daylight, which do not).
+    let world_land = if args.land.is_none()
+        && !args.all_sea
+        && !args.no_land
+        && !matches!(args.quantity, Quantity::Insolation | Quantity::Daylight)
+    {
+        crate::worlds::land_file(&args.world)?
+    } else {
+        None
+    };
+    let land = args.land.clone().or(world_land);
+    if land.is_some() || args.all_sea {
+        return run_surface(&args, &p, land.as_deref());
     }
     if !matches!(
         args.quantity,
@@ -236,10 +253,10 @@ pub fn run(args: Args) -> Result<(), String> {
 }
 
 /// `insola map --land FILE` / `--all-sea`: the map climate on a latitude × longitude map.
-fn run_surface(args: &Args, p: &Planet) -> Result<(), String> {
+fn run_surface(args: &Args, p: &Planet, land: Option<&str>) -> Result<(), String> {
     let req = super::map_land::Request {
         quantity: args.quantity,
-        land: args.land.as_deref(),
+        land,
         day: args.day,
         grid: super::land::parse_grid(&args.grid)?,
     };

@@ -297,6 +297,19 @@ struct ClimateSection {
     lapse_rate_k_per_km: f64,
     max_years: u32,
     tolerance_k: f64,
+    /// A land file (PNG mask or RON layout) for tools that map the climate, relative to the
+    /// world file: the `insola` CLI's `map`, `climate` and `check` take it as their `--land`.
+    /// Not a model parameter: [`ClimateSpec`] leaves it out, and a spec written back has none.
+    #[serde(
+        skip_serializing_if = "Option::is_none",
+        deserialize_with = "plain_text"
+    )]
+    land: Option<String>,
+}
+
+/// An optional text written as a plain string (`"a.png"`, not `Some("a.png")`).
+fn plain_text<'de, D: serde::Deserializer<'de>>(d: D) -> Result<Option<String>, D::Error> {
+    String::deserialize(d).map(Some)
 }
 
 /// An optional number written as a plain number (`0.3`, not `Some(0.3)`), whatever the RON
@@ -349,6 +362,7 @@ impl From<ClimateSpec> for ClimateSection {
             lapse_rate_k_per_km: s.lapse_rate_k_per_km,
             max_years: s.max_years,
             tolerance_k: s.tolerance_k,
+            land: None,
         }
     }
 }
@@ -403,6 +417,14 @@ mod tests {
         // Twice the day, twice κ: the layer has twice as long to follow the star.
         let k2 = ClimateSpec::default().diurnal_kappa(172_800.0);
         assert!((k2 - 2.0 * k).abs() < 1e-12);
+    }
+
+    #[test]
+    fn a_land_file_is_accepted_and_left_to_tools() {
+        // `land` names a file for the CLI; the model spec is the same with or without it.
+        let with: ClimateSpec = ron::from_str("(land: \"world.land.png\")").unwrap();
+        assert_eq!(with, ClimateSpec::default());
+        assert!(ron::from_str::<ClimateSpec>("(land: 3)").is_err());
     }
 
     #[test]
