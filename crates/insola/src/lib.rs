@@ -21,6 +21,7 @@ mod moon_orbit;
 pub mod moons;
 pub mod occlusion;
 pub mod orbit;
+pub mod rings;
 mod place;
 mod planet;
 mod search;

@@ -121,6 +121,18 @@ impl MapForcing {
         let locked = planet.spin().is_tidally_locked();
         let day_s = planet.day_s();
         if !locked && day_s < SLOW_DAY_STEPS * dt {
+            if planet.daily_mean_needs_quadrature() {
+                // The daily mean under a ring (see `crate::rings::daily_mean`).
+                let daily = planet.ring_band_insolation(&annual, grid.rows(), steps)?;
+                return Ok(MapForcing {
+                    mode: ForcingMode::DailyMean,
+                    steps,
+                    year_s,
+                    daily: Some(daily),
+                    suns: Vec::new(),
+                    annual: Some(annual),
+                });
+            }
             return Self::daily_mean(&annual, grid, steps);
         }
         let sense = if planet.is_retrograde() { -1.0 } else { 1.0 };
