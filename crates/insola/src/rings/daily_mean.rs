@@ -130,7 +130,7 @@ pub(crate) fn ring_daily_mean_w_m2(
 
 impl Planet {
     /// The ring in the form the quadrature needs (`None` without a shadow-casting ring).
-    fn ring_geometry(&self) -> Option<RingGeometry> {
+    pub(crate) fn ring_geometry(&self) -> Option<RingGeometry> {
         let ring = self.ring().filter(|r| r.casts_shadow())?;
         Some(RingGeometry::new(ring, self.body().radius_km))
     }
