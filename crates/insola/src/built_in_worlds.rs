@@ -87,7 +87,7 @@ mod tests {
         }
         assert_eq!(
             invented_world_names().collect::<Vec<_>>(),
-            ["verdance", "calvenne", "oromar"]
+            ["verdance", "calvenne", "oromar", "thalcary"]
         );
         assert!(built_in_world("earth-reference").unwrap().is_reference);
         assert!(built_in_world("nowhere").is_none());
