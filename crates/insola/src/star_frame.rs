@@ -185,9 +185,8 @@ impl StarFrame {
             let (sin_lon, cos_lon) = place.longitude_rad.sin_cos();
             let moons = occlusion_among(&self.sights, sin_lat, cos_lat, sin_lon, cos_lon);
             match &self.ring {
-                Some(ring) => moons.with_ring_transmission(ring.transmission(
-                    sin_lat, cos_lat, sin_lon, cos_lon,
-                )),
+                Some(ring) => moons
+                    .with_ring_transmission(ring.transmission(sin_lat, cos_lat, sin_lon, cos_lon)),
                 None => moons,
             }
         };

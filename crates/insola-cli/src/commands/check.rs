@@ -66,6 +66,9 @@ pub struct Facts {
     pub season_wander: Vec<insola::calendar_design::SeasonWander>,
     /// Things a designer may want to know.
     pub warnings: Vec<String>,
+    /// The ring's annuli and their solstice shadow (left out on worlds without a ring).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ring: Option<Vec<super::ring::AnnulusFacts>>,
 }
 
 /// The calendar in a few numbers.
@@ -221,6 +224,7 @@ pub fn facts(p: &Planet) -> Facts {
         season_dates: p.season_dates(first_year),
         season_wander: p.season_wander(),
         warnings,
+        ring: super::ring::facts(p),
     }
 }
 
@@ -377,6 +381,9 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     for line in super::calendar::season_lines(&f.season_dates, &f.season_wander) {
         say!("  {line}");
+    }
+    if let Some(annuli) = &f.ring {
+        super::ring::print_facts(annuli);
     }
     for w in &f.warnings {
         say!("  warning: {w}");

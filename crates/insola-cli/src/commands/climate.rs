@@ -85,6 +85,9 @@ pub struct ClimateReport {
     pub converged: bool,
     /// Largest change of any band over the last year, K.
     pub residual_k: f64,
+    /// The sunlight the ring's shadow takes from the forcing (left out without a ring).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ring: Option<super::ring::RingClimateNote>,
 }
 
 /// One tilt of an obliquity sweep.
@@ -159,6 +162,7 @@ pub fn report(p: &Planet, c: &ClimateCycle) -> ClimateReport {
         years_to_equilibrium: c.years_to_equilibrium(),
         converged: c.converged(),
         residual_k: c.residual_k(),
+        ring: super::ring::climate_note(p),
     }
 }
 
@@ -310,6 +314,14 @@ pub fn run(args: Args) -> Result<(), String> {
         r.years_to_equilibrium,
         r.residual_k
     );
+    if let Some(ring) = &r.ring {
+        say!(
+            "  ring shadow in the forcing: {:.1} W/m² of the global annual-mean sunlight, most at {:.1}° ({:.1} W/m²)",
+            ring.global_loss_w_m2,
+            ring.largest_loss_lat_deg,
+            ring.largest_loss_w_m2
+        );
+    }
     say!(
         "{:>7} {:>7} {:>7} {:>7} {:>5}  summary",
         "lat °",

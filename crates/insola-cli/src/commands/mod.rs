@@ -11,5 +11,6 @@ pub mod events;
 pub mod list;
 pub mod map;
 pub mod output;
+pub mod ring;
 pub mod sky;
 pub mod year;

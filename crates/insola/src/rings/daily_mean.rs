@@ -60,7 +60,11 @@ fn gauss_8(a: f64, b: f64, f: &mut impl FnMut(f64) -> f64) -> f64 {
 
 /// `∫₀^h0 f(h) dh` by Gauss–Legendre on each piece between the sorted `breaks` (values outside
 /// `(0, h0)` are ignored).
-pub(crate) fn integrate_pieces(h0: f64, breaks: &mut Vec<f64>, f: &mut impl FnMut(f64) -> f64) -> f64 {
+pub(crate) fn integrate_pieces(
+    h0: f64,
+    breaks: &mut Vec<f64>,
+    f: &mut impl FnMut(f64) -> f64,
+) -> f64 {
     breaks.retain(|&b| b > 0.0 && b < h0);
     breaks.sort_by(f64::total_cmp);
     let mut total = 0.0;

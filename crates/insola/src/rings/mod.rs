@@ -39,7 +39,7 @@ pub mod sky;
 mod tests;
 
 pub use daily_mean::RING_DAILY_MEAN_NODES;
-pub use shadow::{RING_SHADOW_THRESHOLD, RingShadow, RingSight};
+pub use shadow::{RING_SHADOW_THRESHOLD, RingShadow, RingSight, noon_shadow_latitude_rad};
 pub use sky::{RING_ARC_POINTS, RingArc, RingEdgePoint, RingFace, RingView};
 
 use crate::planet::Planet;

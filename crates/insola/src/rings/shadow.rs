@@ -166,6 +166,24 @@ impl RingSight {
     }
 }
 
+/// Latitude, radians, over which the edge of radius `ring_radius_km` casts its shadow on the
+/// meridian facing the star (local noon) when the star's declination is `declination_rad`, on
+/// a planet of `planet_radius_km`: `φ = δ − asin((ρ/R) sin δ)`, from `ρ = R sin(δ − φ)/sin δ`
+/// for the ray from `R(cos φ, 0, sin φ)` toward `(cos δ, 0, sin δ)` (parallel rays). `None`
+/// when the star stands in the ring plane or that edge's shadow falls beyond the noon
+/// meridian's sunlit part (`(ρ/R)|sin δ| > 1`).
+pub fn noon_shadow_latitude_rad(
+    planet_radius_km: f64,
+    ring_radius_km: f64,
+    declination_rad: f64,
+) -> Option<f64> {
+    let x = ring_radius_km / planet_radius_km * declination_rad.sin();
+    if declination_rad == 0.0 || !x.is_finite() || x.abs() > 1.0 {
+        return None;
+    }
+    Some(declination_rad - x.asin())
+}
+
 /// Unit position vector of `place` in the rotating frame.
 pub(crate) fn place_unit_vector(place: Place) -> DVec3 {
     let (sl, cl) = place.latitude_rad.sin_cos();

@@ -4,7 +4,7 @@ use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
 use glam::DVec3;
 
-use super::daily_mean::{ring_day_moments, ring_daily_mean_w_m2};
+use super::daily_mean::{ring_daily_mean_w_m2, ring_day_moments};
 use super::shadow::RingGeometry;
 use crate::lighting::LightMode;
 use crate::seasons::SeasonMark;
@@ -184,7 +184,10 @@ fn shadow_matches_ray_marching_through_a_thin_slab() {
             assert!((a - b).abs() < 1e-3 * r, "{a} vs {b}");
         }
     }
-    assert!(checked > 300 && shaded > 25, "{checked} checked, {shaded} shaded");
+    assert!(
+        checked > 300 && shaded > 25,
+        "{checked} checked, {shaded} shaded"
+    );
 }
 
 #[test]
@@ -204,6 +207,11 @@ fn shadow_band_latitudes_on_the_meridian_match_the_closed_form() {
         let lon = s.y.atan2(s.x); // the sub-star meridian: hour angle 0
         let d = instant.declination_rad;
         let edge_lat = |rho: f64| d - ((rho / r) * d.sin()).asin();
+        assert_eq!(
+            super::noon_shadow_latitude_rad(r, inner, d),
+            Some(edge_lat(inner))
+        );
+        assert_eq!(super::noon_shadow_latitude_rad(r, 10.0 * r, d), None);
         let (phi_in, phi_out) = (edge_lat(inner), edge_lat(outer));
         assert!(phi_in.abs() < phi_out.abs() && phi_in * d < 0.0);
         let at = |phi: f64| p.ring_shadow(&instant, rad_place(phi, lon));
@@ -237,7 +245,10 @@ fn with_clear_ring(p: &Planet) -> Planet {
     let mut spec = p.spec().clone();
     let r = p.body().radius_km;
     spec.ring = Some(RingSpec {
-        annuli: vec![annulus(1.2 * r, 2.5 * r, 0.0), annulus(2.6 * r, 3.0 * r, 0.0)],
+        annuli: vec![
+            annulus(1.2 * r, 2.5 * r, 0.0),
+            annulus(2.6 * r, 3.0 * r, 0.0),
+        ],
     });
     Planet::new(&spec).unwrap()
 }
@@ -257,7 +268,10 @@ fn a_ring_of_zero_optical_depth_changes_nothing() {
             let place =
                 Place::from_degrees(-80.0 + 4.1 * k as f64, -170.0 + 8.7 * k as f64).unwrap();
             for mode in [LightMode::Ground, LightMode::TopOfAtmosphere] {
-                let (a, b) = (bare.lighting(t, place, mode), clear.lighting(t, place, mode));
+                let (a, b) = (
+                    bare.lighting(t, place, mode),
+                    clear.lighting(t, place, mode),
+                );
                 assert_eq!(a, b, "{}", w.name);
             }
             let i = bare.star_instant(t);
@@ -436,7 +450,10 @@ fn the_ring_dims_every_consumer_alike_and_is_named() {
     assert_eq!(crate::occlusion::Occluder::Ring.to_string(), "ring");
     assert!((o.transmitted_fraction() - shadow.transmission).abs() < 1e-12);
     let light = p.lighting(t, place, LightMode::Ground);
-    assert_eq!(light.star_occluded_by, Some(crate::occlusion::Occluder::Ring));
+    assert_eq!(
+        light.star_occluded_by,
+        Some(crate::occlusion::Occluder::Ring)
+    );
     assert_eq!(light.star_eclipse_fraction, o.hidden_fraction);
     let bare = without_ring(&p).lighting(t, place, LightMode::Ground);
     assert!(
@@ -494,7 +511,10 @@ fn highest_point_of_the_arc_matches_the_closed_form() {
                 .iter()
                 .max_by(|a, b| a.altitude_rad.total_cmp(&b.altitude_rad))
                 .unwrap();
-            assert!((top.altitude_rad - want).abs() < 1e-9, "{lat_deg}: {top:?} vs {want}");
+            assert!(
+                (top.altitude_rad - want).abs() < 1e-9,
+                "{lat_deg}: {top:?} vs {want}"
+            );
             let south = if phi > 0.0 { PI } else { 0.0 };
             let daz = crate::angle::wrap_pi(top.azimuth_rad - south).abs();
             assert!(daz < 1e-9, "{lat_deg}: {}", top.azimuth_rad);
@@ -511,6 +531,8 @@ fn highest_point_of_the_arc_matches_the_closed_form() {
         );
     }
     // Far toward the pole the ring sinks below the horizon (r cos φ ≤ R for every edge).
-    let polar = p.ring_view(0.0, Place::from_degrees(75.0, 0.0).unwrap()).unwrap();
+    let polar = p
+        .ring_view(0.0, Place::from_degrees(75.0, 0.0).unwrap())
+        .unwrap();
     assert!(polar.arcs.is_empty());
 }

@@ -72,9 +72,14 @@ impl Planet {
     }
 
     /// The star crossing the ring plane in `[from_s, to_s)` (the equinoxes; nothing on a
-    /// world without a ring).
-    pub(super) fn ring_plane_crossings_into(&self, from_s: f64, to_s: f64, out: &mut Vec<SkyEvent>) {
-        if self.ring().is_none() {
+    /// world without a ring that casts a shadow: a transparent ring changes nothing).
+    pub(super) fn ring_plane_crossings_into(
+        &self,
+        from_s: f64,
+        to_s: f64,
+        out: &mut Vec<SkyEvent>,
+    ) {
+        if !self.has_ring_shadow() {
             return;
         }
         for (mark, northward) in [
@@ -133,7 +138,10 @@ mod tests {
             };
             let inside = stage == RingShadowStage::Enters;
             // Just after each event the new state holds; just before, the old.
-            assert_eq!(p.ring_shadow_state(a.at_s + 2.0 * tol, place).is_some(), inside);
+            assert_eq!(
+                p.ring_shadow_state(a.at_s + 2.0 * tol, place).is_some(),
+                inside
+            );
             assert_eq!(p.ring_shadow_state(a.at_s, place).is_some(), !inside);
             // Midway to the next event the state is the new one; entries and exits alternate.
             let mid = 0.5 * (a.at_s + b.at_s);
@@ -163,7 +171,9 @@ mod tests {
                 },
             ) = (pair[0].kind, pair[1].kind)
             {
-                let d = p.star_instant(0.5 * (pair[0].at_s + pair[1].at_s)).declination_rad;
+                let d = p
+                    .star_instant(0.5 * (pair[0].at_s + pair[1].at_s))
+                    .declination_rad;
                 let k = r_planet * phi.sin().abs() / d.tan();
                 let c = (r_edge * r_edge - (r_planet * phi.cos()).powi(2) - k * k)
                     / (2.0 * r_planet * k * phi.cos());

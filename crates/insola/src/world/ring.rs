@@ -167,12 +167,30 @@ mod tests {
         assert_eq!(good.outer_radius_km(), 12000.0);
         let cases = [
             (vec![], "ring.annuli"),
-            (vec![annulus(-1.0, 9000.0, 0.5)], "ring.annuli[0].inner_radius_km"),
-            (vec![annulus(0.0, 9000.0, 0.5)], "ring.annuli[0].inner_radius_km"),
-            (vec![annulus(5000.0, 9000.0, 0.5)], "ring.annuli[0].inner_radius_km"),
-            (vec![annulus(7000.0, 7000.0, 0.5)], "ring.annuli[0].outer_radius_km"),
-            (vec![annulus(7000.0, f64::NAN, 0.5)], "ring.annuli[0].outer_radius_km"),
-            (vec![annulus(7000.0, 8000.0, -0.1)], "ring.annuli[0].optical_depth"),
+            (
+                vec![annulus(-1.0, 9000.0, 0.5)],
+                "ring.annuli[0].inner_radius_km",
+            ),
+            (
+                vec![annulus(0.0, 9000.0, 0.5)],
+                "ring.annuli[0].inner_radius_km",
+            ),
+            (
+                vec![annulus(5000.0, 9000.0, 0.5)],
+                "ring.annuli[0].inner_radius_km",
+            ),
+            (
+                vec![annulus(7000.0, 7000.0, 0.5)],
+                "ring.annuli[0].outer_radius_km",
+            ),
+            (
+                vec![annulus(7000.0, f64::NAN, 0.5)],
+                "ring.annuli[0].outer_radius_km",
+            ),
+            (
+                vec![annulus(7000.0, 8000.0, -0.1)],
+                "ring.annuli[0].optical_depth",
+            ),
             (
                 vec![annulus(7000.0, 8000.0, f64::INFINITY)],
                 "ring.annuli[0].optical_depth",
