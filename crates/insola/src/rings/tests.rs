@@ -536,3 +536,39 @@ fn highest_point_of_the_arc_matches_the_closed_form() {
         .unwrap();
     assert!(polar.arcs.is_empty());
 }
+
+#[test]
+fn map_forcing_takes_the_ring_in_every_form() {
+    use crate::map_climate::{ForcingMode, MapForcing, MapGrid};
+    // Daily-mean form (a fast rotator): the rows are the zonal model's ringed table.
+    let p = thalcary();
+    let grid = MapGrid::new(24, 36).unwrap();
+    let f = MapForcing::from_planet(&p, &grid, 96).unwrap();
+    assert_eq!(f.mode(), ForcingMode::DailyMean);
+    let table = p
+        .ring_band_insolation(&p.annual_forcing(96), grid.rows(), 96)
+        .unwrap();
+    assert_eq!(f.daily_table().unwrap(), &table);
+    // Instantaneous form (a slow rotator): no cell gets more than without the ring, and the
+    // shadow takes at least a tenth from many cells over the year.
+    let mut spec = p.spec().clone();
+    spec.spin.solar_day_hours = Some(24.0 * 40.0);
+    let slow = Planet::new(&spec).unwrap();
+    let bare = without_ring(&slow);
+    let (fr, fb) = (
+        MapForcing::from_planet(&slow, &grid, 360).unwrap(),
+        MapForcing::from_planet(&bare, &grid, 360).unwrap(),
+    );
+    assert!(matches!(fr.mode(), ForcingMode::Instantaneous { .. }));
+    let mut dimmed = 0;
+    for k in (0..360).step_by(7) {
+        let (qr, qb) = (fr.insolation_w_m2(k, &grid), fb.insolation_w_m2(k, &grid));
+        for (&a, &b) in qr.iter().zip(&qb) {
+            assert!(a <= b + 1e-9 && a >= 0.0);
+            if a < 0.9 * b {
+                dimmed += 1;
+            }
+        }
+    }
+    assert!(dimmed > 50, "{dimmed}");
+}
