@@ -101,28 +101,46 @@ impl RingGeometry {
     /// business, not the ring's.
     #[inline]
     pub(crate) fn shadow(&self, n: DVec3, s: DVec3) -> RingShadow {
-        if n.dot(s) <= 0.0 || n.z * s.z >= 0.0 {
-            return RingShadow::CLEAR;
+        shadow_through(
+            self.planet_radius_km,
+            n,
+            s,
+            self.bands
+                .iter()
+                .map(|b| (b.inner_sq_km2, b.outer_sq_km2, b.optical_depth)),
+        )
+    }
+}
+
+/// The law of [`RingGeometry::shadow`] over annuli given as (inner radius², outer radius², τ),
+/// km² and dimensionless, inside out.
+#[inline]
+fn shadow_through(
+    r: f64,
+    n: DVec3,
+    s: DVec3,
+    bands: impl Iterator<Item = (f64, f64, f64)>,
+) -> RingShadow {
+    if n.dot(s) <= 0.0 || n.z * s.z >= 0.0 {
+        return RingShadow::CLEAR;
+    }
+    let t = -r * n.z / s.z;
+    let x = r * n.x + t * s.x;
+    let y = r * n.y + t * s.y;
+    let rho_sq = x * x + y * y;
+    let crossing = Some(rho_sq.sqrt());
+    for (i, (inner_sq, outer_sq, tau)) in bands.enumerate() {
+        if rho_sq >= inner_sq && rho_sq < outer_sq {
+            return RingShadow {
+                transmission: (-tau / s.z.abs()).exp(),
+                annulus: Some(i),
+                crossing_radius_km: crossing,
+            };
         }
-        let r = self.planet_radius_km;
-        let t = -r * n.z / s.z;
-        let x = r * n.x + t * s.x;
-        let y = r * n.y + t * s.y;
-        let rho_sq = x * x + y * y;
-        let crossing = Some(rho_sq.sqrt());
-        for (i, b) in self.bands.iter().enumerate() {
-            if rho_sq >= b.inner_sq_km2 && rho_sq < b.outer_sq_km2 {
-                return RingShadow {
-                    transmission: (-b.optical_depth / s.z.abs()).exp(),
-                    annulus: Some(i),
-                    crossing_radius_km: crossing,
-                };
-            }
-        }
-        RingShadow {
-            crossing_radius_km: crossing,
-            ..RingShadow::CLEAR
-        }
+    }
+    RingShadow {
+        crossing_radius_km: crossing,
+        ..RingShadow::CLEAR
     }
 }
 
@@ -224,10 +242,26 @@ impl Planet {
     /// The ring's shadow at `place` at a precomputed instant ([`RingShadow::CLEAR`] on worlds
     /// without a shadow-casting ring).
     pub fn ring_shadow(&self, instant: &StarInstant, place: Place) -> RingShadow {
-        match self.ring_sight(instant) {
-            Some(sight) => sight.shadow_at(place_unit_vector(place)),
-            None => RingShadow::CLEAR,
+        let Some(ring) = self.ring().filter(|r| r.casts_shadow()) else {
+            return RingShadow::CLEAR;
+        };
+        if instant.sin_declination == 0.0 {
+            return RingShadow::CLEAR;
         }
+        // The same law as `RingSight::shadow_at`, straight from the world file's annuli (no
+        // allocation per query).
+        shadow_through(
+            self.body().radius_km,
+            place_unit_vector(place),
+            self.star_direction_rotating(instant),
+            ring.annuli.iter().map(|a| {
+                (
+                    a.inner_radius_km * a.inner_radius_km,
+                    a.outer_radius_km * a.outer_radius_km,
+                    a.optical_depth,
+                )
+            }),
+        )
     }
 
     /// Fraction of the star's direct beam the ring lets through at `place` at a precomputed

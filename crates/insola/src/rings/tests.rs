@@ -572,3 +572,20 @@ fn map_forcing_takes_the_ring_in_every_form() {
     }
     assert!(dimmed > 50, "{dimmed}");
 }
+
+#[test]
+fn the_bulk_sight_and_the_single_query_agree() {
+    let p = thalcary();
+    let mut rng = SplitMix(77);
+    for _ in 0..500 {
+        let t = rng.range(0.0, p.year_s());
+        let place = rad_place(rng.range(-1.5, 1.5), rng.range(-PI, PI));
+        let instant = p.star_instant(t);
+        let single = p.ring_shadow(&instant, place);
+        let bulk = p
+            .ring_sight(&instant)
+            .unwrap()
+            .shadow_at(super::shadow::place_unit_vector(place));
+        assert_eq!(single, bulk);
+    }
+}
