@@ -11,12 +11,12 @@
 //!
 //! (the integrand is even in `h`) is taken by Gauss–Legendre quadrature on each piece between
 //! sunrise, the edge crossings and sunset, declination and distance held for the day as Berger
-//! holds them. On a piece the integrand is `T·μ(h)`, a constant plus a cosine, which
-//! [`RING_DAILY_MEAN_NODES`]-point Gauss–Legendre integrates to rounding (the rule is exact for
-//! polynomials of degree 15; the cosine's Taylor remainder past that over a piece of at most π
-//! is below π¹⁶/16! ≈ 1e-5 of the peak, and the rule's own error term far smaller, ~1e-12 W m⁻²
-//! in practice): far inside the ~0.1 W m⁻² the climate needs. Tested against Berger without a
-//! ring (1e-6 relative) and against a fine midpoint sum with one (0.1 W m⁻²).
+//! holds them. On a piece the integrand is `T·S·μ(h)`, a constant plus a cosine, and the
+//! [`RING_DAILY_MEAN_NODES`]-point Gauss–Legendre rule's error on an interval of length `L` is
+//! `L¹⁷ (8!)⁴ / (17 (16!)³) · max|f⁽¹⁶⁾|` (its error term, Abramowitz & Stegun §25.4, from
+//! memory); for `L ≤ π` and `f = A cos h` that is below `5e-15 · A`, some 1e-12 W m⁻² for
+//! `A = S/π`: far inside the ~0.1 W m⁻² the climate needs. Tested against Berger without a ring (1e-6 relative) and
+//! against a fine midpoint sum with one (0.1 W m⁻²).
 //!
 //! Edge crossings: with the place at `R(cos φ, 0, sin φ)` and the star at
 //! `(cos δ cos h, −cos δ sin h, sin δ)`, the ray meets the ring plane at `t = −R sin φ / sin δ`
@@ -223,7 +223,7 @@ mod tests {
     #[test]
     fn the_gauss_rule_is_exact_to_degree_fifteen() {
         // An n-point Gauss–Legendre rule integrates polynomials up to degree 2n − 1 exactly
-        // (Abramowitz & Stegun 25.4.29): ∫₋₁¹ x^k = 2/(k+1) for even k, 0 for odd.
+        // (Abramowitz & Stegun §25.4): ∫₋₁¹ x^k = 2/(k+1) for even k, 0 for odd.
         for k in 0..=15 {
             let got = gauss_8(-1.0, 1.0, &mut |x: f64| x.powi(k));
             let want = if k % 2 == 0 {

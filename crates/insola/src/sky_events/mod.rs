@@ -28,9 +28,10 @@
 //!   (`BodyLight::is_up`: centre strictly above [`Planet::standard_rise_altitude_rad`] or
 //!   [`Planet::moon_rise_altitude_rad`]); twilight boundaries are where
 //!   [`crate::light::TwilightPhase::from_altitude`] changes; eclipses of the star are where an
-//!   occluder's cover in [`crate::occlusion`] turns positive, so a ring or second star added
-//!   there is found here unchanged; eclipses of a moon are where its
-//!   [`crate::moons::MoonView::shadow_fraction`] turns positive.
+//!   occluder's cover in [`crate::occlusion`] turns positive, so a second star added there is
+//!   found here unchanged; eclipses of a moon are where its
+//!   [`crate::moons::MoonView::shadow_fraction`] turns positive; the ring's shadow (no disc to
+//!   walk to) is where [`crate::rings::RingShadow::is_shadowed`] changes, sampled (`ring.rs`).
 //!
 //! # How the search works, and its limits
 //!
