@@ -21,6 +21,7 @@ mod moon_orbit;
 pub mod moons;
 pub mod occlusion;
 pub mod orbit;
+mod parallel;
 mod place;
 mod planet;
 pub mod rings;

@@ -20,8 +20,6 @@
 
 use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
-use rayon::prelude::*;
-
 use super::cycle::ClimateCycle;
 use super::forcing::periodic_index;
 use crate::error::{QueryError, check_arg};
@@ -320,16 +318,14 @@ impl ClimateInstant<'_> {
                 });
             }
         }
-        out.par_chunks_mut(BATCH_CHUNK)
-            .enumerate()
-            .try_for_each(|(c, chunk)| {
-                let start = c * BATCH_CHUNK;
-                for (i, o) in chunk.iter_mut().enumerate() {
-                    let p = start + i;
-                    *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
-                }
-                Ok(())
-            })
+        crate::parallel::try_for_each_chunk(out, BATCH_CHUNK, |c, chunk| {
+            let start = c * BATCH_CHUNK;
+            for (i, o) in chunk.iter_mut().enumerate() {
+                let p = start + i;
+                *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
+            }
+            Ok(())
+        })
     }
 }
 
