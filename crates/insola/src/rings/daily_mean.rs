@@ -28,7 +28,6 @@
 use std::f64::consts::PI;
 
 use glam::DVec3;
-use rayon::prelude::*;
 
 use super::shadow::RingGeometry;
 use crate::climate::{AnnualForcing, BandInsolation, ClimateGrid};
@@ -177,19 +176,19 @@ impl Planet {
         let lats = grid.lat_centres_rad();
         let nb = lats.len();
         let s0 = forcing.s0_w_m2;
-        // Per step and band: (insolation, weighted ∫μT, weighted ∫μ²T), weight 1/ρ².
-        let cells: Vec<(f64, f64, f64)> = (0..steps)
-            .into_par_iter()
-            .flat_map_iter(|k| {
+        // Per step and band: (insolation, weighted ∫μT, weighted ∫μ²T), weight 1/ρ²; one step
+        // per chunk (each depends only on its own step, so serial and parallel builds agree).
+        let mut cells = vec![(0.0, 0.0, 0.0); steps * nb];
+        if nb > 0 {
+            crate::parallel::for_each_chunk(&mut cells, nb, |k, row| {
                 let s = forcing.sample_at(k as f64 / steps as f64);
                 let w = 1.0 / (s.distance_factor * s.distance_factor);
-                let ring = &ring;
-                lats.iter().map(move |&lat| {
-                    let (m1, m2) = ring_day_moments(ring, lat, s.declination_rad);
-                    ((s0 * w / PI * m1).max(0.0), w * m1, w * m2)
-                })
-            })
-            .collect();
+                for (cell, &lat) in row.iter_mut().zip(lats) {
+                    let (m1, m2) = ring_day_moments(&ring, lat, s.declination_rad);
+                    *cell = ((s0 * w / PI * m1).max(0.0), w * m1, w * m2);
+                }
+            });
+        }
         let w_m2 = cells.iter().map(|c| c.0).collect();
         let mean_cos_zenith = (0..nb)
             .map(|j| {
