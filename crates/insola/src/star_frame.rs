@@ -135,7 +135,8 @@ impl StarFrame {
     }
 
     /// `true` if an occluder can hide part of the star from somewhere on the planet at this
-    /// instant; when `false`, no place sees an eclipse.
+    /// instant (a moon within reach, or a shadow-casting ring with the star off its plane);
+    /// when `false`, no place sees an eclipse or a ring shadow.
     pub fn eclipse_possible(&self) -> bool {
         !self.sights.is_empty() || self.ring.is_some()
     }

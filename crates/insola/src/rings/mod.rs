@@ -36,7 +36,7 @@ pub mod shadow;
 pub mod sky;
 
 #[cfg(test)]
-mod tests;
+pub(crate) mod tests;
 
 pub use daily_mean::RING_DAILY_MEAN_NODES;
 pub use shadow::{RING_SHADOW_THRESHOLD, RingShadow, RingSight, noon_shadow_latitude_rad};

@@ -108,13 +108,7 @@ mod tests {
     use crate::sky_events::{EventFilter, EventGroup};
 
     fn thalcary() -> Planet {
-        Planet::new(
-            &crate::built_in_worlds::built_in_world("thalcary")
-                .unwrap()
-                .spec()
-                .unwrap(),
-        )
-        .unwrap()
+        crate::rings::tests::thalcary()
     }
 
     #[test]
