@@ -1,7 +1,8 @@
 //! The single-precision star frame over 1,000,000 places on one thread: the common path (no
 //! occluder within reach of the planet), the eclipse path (a moon in front of the star, every
-//! sunlit place computing its cover), and a baseline loop that reads the same places and
-//! writes the same bytes. Invented world (Umbrel: a moon as large in the sky as the star, on an
+//! sunlit place computing its cover), the ring path (a ringed world at a solstice, every
+//! sunlit place computing the ring's shadow), and a baseline loop that reads the same places
+//! and writes the same bytes. Invented world (Umbrel: a moon as large in the sky as the star, on an
 //! orbit in the ecliptic, new at time zero).
 //!
 //! Run with `cargo bench -p insola --bench star_frame`; the summary prints each path as a
@@ -19,6 +20,16 @@ fn umbrel() -> Planet {
         orbit: (semi_major_axis_au: 1, eccentricity: 0, periapsis_longitude_deg: 0, period_days: 360),
         spin: (obliquity_deg: 0, solar_day_hours: 24),
         moons: [(name: "Shade", radius_km: 1800, distance_km: 380000, period_days: 27, phase_at_zero_deg: 0)])"#;
+    Planet::new(&WorldSpec::from_ron_str(text).expect("valid")).expect("valid")
+}
+
+/// Umbrel with a tilt and a ring instead of the moon (invented).
+fn ringed_umbrel() -> Planet {
+    let text = r#"(name: "Umbrel", star: (temperature_k: 5772, radius_r_sun: 1, flux_at_mean_distance_w_m2: 1361),
+        orbit: (semi_major_axis_au: 1, eccentricity: 0, periapsis_longitude_deg: 0, period_days: 360),
+        spin: (obliquity_deg: 25, solar_day_hours: 24),
+        ring: (annuli: [(inner_radius_km: 8000, outer_radius_km: 11000, optical_depth: 0.2),
+                        (inner_radius_km: 11000, outer_radius_km: 16000, optical_depth: 0.8)]))"#;
     Planet::new(&WorldSpec::from_ron_str(text).expect("valid")).expect("valid")
 }
 
@@ -41,6 +52,9 @@ fn star_frame(c: &mut Criterion) {
     let eclipse = planet.star_frame(0.0).to_f32();
     let clear = planet.star_frame(7.0 * 86_400.0).to_f32();
     assert!(eclipse.eclipse_possible() && !clear.eclipse_possible());
+    // A quarter year in: the northern solstice, the ring's shadow across the south.
+    let ringed = ringed_umbrel().star_frame(90.0 * 86_400.0).to_f32();
+    assert!(ringed.eclipse_possible());
     let mut g = c.benchmark_group("star_frame_f32_one_thread");
     g.sample_size(20);
     g.throughput(Throughput::Elements(PLACES as u64));
@@ -53,7 +67,11 @@ fn star_frame(c: &mut Criterion) {
             }
         })
     });
-    for (name, frame) in [("no_occluder_in_reach", &clear), ("eclipse_path", &eclipse)] {
+    for (name, frame) in [
+        ("no_occluder_in_reach", &clear),
+        ("eclipse_path", &eclipse),
+        ("ring_path", &ringed),
+    ] {
         g.bench_function(name, |b| {
             b.iter(|| {
                 for (p, out) in input.iter().zip(&mut output) {

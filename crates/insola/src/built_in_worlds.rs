@@ -27,7 +27,8 @@ impl BuiltInWorld {
     }
 }
 
-/// Every shipped world: the three invented demo worlds, then the Earth validation reference.
+/// Every shipped world: the four invented demo worlds (the ringed Thalcary last), then the Earth
+/// validation reference.
 pub const BUILT_IN_WORLDS: &[BuiltInWorld] = &[
     BuiltInWorld {
         name: "verdance",
@@ -42,6 +43,11 @@ pub const BUILT_IN_WORLDS: &[BuiltInWorld] = &[
     BuiltInWorld {
         name: "oromar",
         ron: include_str!("../worlds/oromar.world.ron"),
+        is_reference: false,
+    },
+    BuiltInWorld {
+        name: "thalcary",
+        ron: include_str!("../worlds/thalcary.world.ron"),
         is_reference: false,
     },
     BuiltInWorld {
@@ -81,7 +87,7 @@ mod tests {
         }
         assert_eq!(
             invented_world_names().collect::<Vec<_>>(),
-            ["verdance", "calvenne", "oromar"]
+            ["verdance", "calvenne", "oromar", "thalcary"]
         );
         assert!(built_in_world("earth-reference").unwrap().is_reference);
         assert!(built_in_world("nowhere").is_none());

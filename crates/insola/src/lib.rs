@@ -24,6 +24,7 @@ pub mod orbit;
 mod parallel;
 mod place;
 mod planet;
+pub mod rings;
 mod search;
 pub mod seasons;
 mod sky;

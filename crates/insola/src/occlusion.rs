@@ -9,9 +9,10 @@
 //!   [`crate::WorldSpec::star`]; its light, colour and position come from
 //!   [`Planet::star_instant`] and [`Planet::star_position_at`].
 //! - **occluders** — anything that can stand between a place and a star's disc. Today these
-//!   are the moons ([`Occluder::Moon`]). A ring (a band of sky with an optical depth) and a
-//!   second star passing in front of the first are new [`Occluder`] variants with their own
-//!   cover function in this file, not changes in each consumer.
+//!   are the moons ([`Occluder::Moon`]) and the ring ([`Occluder::Ring`], a band of sky with
+//!   an optical depth that passes `exp(−τ/|sin B|)` of the beam; [`crate::rings`]). A second
+//!   star passing in front of the first is a new [`Occluder`] variant with its own cover
+//!   function in this file, not changes in each consumer.
 //!
 //! A new occluder also says how far it is from the star ([`Planet::occluder_clearance_rad`],
 //! negative while it covers it) and how fast that can change ([`Planet::occluder_motion`]), so
@@ -32,9 +33,15 @@
 //! [`OccluderSight`]s; then each place costs nothing when that list is empty and a few square
 //! roots per listed occluder when it is not ([`OccluderSight::cover`]).
 //!
-//! Overlapping occluders are not combined: the hidden fraction is the largest single cover
-//! (two moons over one star at once are rare enough that the error is accepted; a ring with an
-//! optical depth will multiply transmissions instead, which is exact for independent layers).
+//! Overlapping moons are not combined: the hidden fraction is the largest single cover
+//! (two moons over one star at once are rare enough that the error is accepted). The ring
+//! multiplies transmissions instead, which is exact for independent layers: the light that
+//! gets through is `(1 − largest moon cover) × ring transmission`, and [`Occlusion::by`] names
+//! whichever of the two takes more. The ring is not in [`Planet::occluders`] (that list is the
+//! discs the eclipse finder walks to); its shadow has its own events
+//! ([`crate::sky_events::SkyEventKind::RingShadow`]). Bulk consumers get it as a
+//! [`crate::rings::RingSight`] per instant ([`Planet::ring_sight`]), `None` on ringless worlds,
+//! so their ringless paths are unchanged.
 
 use glam::DVec3;
 use serde::{Deserialize, Serialize};
@@ -47,12 +54,15 @@ use crate::sky::{Place, StarInstant};
 pub enum Occluder {
     /// Moon `index`, in world-file order.
     Moon(usize),
+    /// The ring system (its shadow dims the beam; [`crate::rings`]).
+    Ring,
 }
 
 impl std::fmt::Display for Occluder {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             Occluder::Moon(i) => write!(f, "moon {i}"),
+            Occluder::Ring => f.write_str("ring"),
         }
     }
 }
@@ -60,7 +70,9 @@ impl std::fmt::Display for Occluder {
 /// How much of the star's disc is hidden for one place at one instant.
 #[derive(Debug, Clone, Copy, PartialEq, Default, Serialize, Deserialize)]
 pub struct Occlusion {
-    /// Fraction of the star's disc (and so of its light, for a uniform disc) hidden, 0–1.
+    /// Fraction of the star's light removed, 0–1: the part of its disc a moon hides (for a
+    /// uniform disc, the same fraction of its light), combined with what the ring absorbs
+    /// (see the module docs).
     pub hidden_fraction: f64,
     /// The occluder that hides the most, if any hides anything.
     pub by: Option<Occluder>,
@@ -76,6 +88,25 @@ impl Occlusion {
     /// Fraction of the star's light that gets through, 0–1.
     pub fn transmitted_fraction(&self) -> f64 {
         1.0 - self.hidden_fraction
+    }
+
+    /// This occlusion with the ring's `transmission` (0–1) multiplied in (the module's rule:
+    /// independent layers multiply); [`Occlusion::by`] becomes [`Occluder::Ring`] when the
+    /// ring takes more of the light than the moon does.
+    #[inline]
+    pub fn with_ring_transmission(self, transmission: f64) -> Occlusion {
+        if transmission >= 1.0 {
+            return self;
+        }
+        let through = self.transmitted_fraction() * transmission.max(0.0);
+        Occlusion {
+            hidden_fraction: (1.0 - through).clamp(0.0, 1.0),
+            by: if 1.0 - transmission > self.hidden_fraction {
+                Some(Occluder::Ring)
+            } else {
+                self.by
+            },
+        }
     }
 }
 
@@ -184,9 +215,9 @@ impl Planet {
     }
 
     /// `true` if the world has anything that can ever hide its star (lets batch paths skip
-    /// the occlusion work on worlds without moons).
+    /// the occlusion work on worlds without moons or a shadow-casting ring).
     pub fn has_occluders(&self) -> bool {
-        !self.moon_orbits().is_empty()
+        !self.moon_orbits().is_empty() || self.has_ring_shadow()
     }
 
     /// `occluder` and the star at a precomputed instant, for many places (`None` for an
@@ -219,6 +250,8 @@ impl Planet {
                     planet_radius_m: self.body().radius_km * 1000.0,
                 })
             }
+            // The ring is not a disc: bulk paths take it as a `RingSight`.
+            Occluder::Ring => None,
         }
     }
 
@@ -239,6 +272,7 @@ impl Planet {
             Occluder::Moon(i) => self
                 .moon_view(instant, i, place)
                 .map_or(0.0, |v| v.star_covered_fraction),
+            Occluder::Ring => 1.0 - self.ring_transmission(instant, place),
         }
     }
 
@@ -258,6 +292,8 @@ impl Planet {
                 .map_or(f64::INFINITY, |v| {
                     v.elongation_rad - v.angular_radius_rad - instant.angular_radius_rad
                 }),
+            // The ring's shadow has no angular gap to walk; its events have their own finder.
+            Occluder::Ring => f64::INFINITY,
         }
     }
 
@@ -306,6 +342,7 @@ impl Planet {
                         .min(self.year_s()),
                 })
             }
+            Occluder::Ring => None,
         }
     }
 
@@ -321,6 +358,9 @@ impl Planet {
                     by: Some(occluder),
                 };
             }
+        }
+        if self.has_ring_shadow() {
+            out = out.with_ring_transmission(self.ring_transmission(instant, place));
         }
         out
     }

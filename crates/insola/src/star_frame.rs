@@ -17,6 +17,7 @@
 
 use crate::occlusion::{OccluderSight, Occlusion, occlusion_among};
 use crate::planet::Planet;
+use crate::rings::RingSight;
 use crate::sky::{Place, StarInstant, StarPosition, star_position_from};
 
 /// The star seen from one place, from a [`StarFrame`].
@@ -99,6 +100,8 @@ pub struct StarFrame {
     rise_altitude_rad: f64,
     /// The occluders that can reach the planet at this instant (usually none).
     sights: Vec<OccluderSight>,
+    /// The ring and the star at this instant (`None` without a shadow-casting ring).
+    ring: Option<RingSight>,
 }
 
 impl Planet {
@@ -114,6 +117,7 @@ impl Planet {
             sense: self.spin().sense.sign(),
             rise_altitude_rad: self.standard_rise_altitude_rad(),
             sights: self.occluders_in_reach(&instant),
+            ring: self.ring_sight(&instant),
             instant,
         }
     }
@@ -131,9 +135,15 @@ impl StarFrame {
     }
 
     /// `true` if an occluder can hide part of the star from somewhere on the planet at this
-    /// instant; when `false`, no place sees an eclipse.
+    /// instant (a moon within reach, or a shadow-casting ring with the star off its plane);
+    /// when `false`, no place sees an eclipse or a ring shadow.
     pub fn eclipse_possible(&self) -> bool {
-        !self.sights.is_empty()
+        !self.sights.is_empty() || self.ring.is_some()
+    }
+
+    /// The ring and the star at this instant, if the world has a shadow-casting ring.
+    pub fn ring_sight(&self) -> Option<&RingSight> {
+        self.ring.as_ref()
     }
 
     /// The occluders within reach of the planet at this instant.
@@ -169,12 +179,17 @@ impl StarFrame {
     /// The star seen from `place`: the same numbers as [`Planet::lighting`] gives there.
     pub fn at(&self, place: Place) -> PlaceSky {
         let position = star_position_from(&self.instant, place, self.sense);
-        let occlusion = if self.sights.is_empty() {
+        let occlusion = if self.sights.is_empty() && self.ring.is_none() {
             Occlusion::CLEAR
         } else {
             let (sin_lat, cos_lat) = place.latitude_rad.sin_cos();
             let (sin_lon, cos_lon) = place.longitude_rad.sin_cos();
-            occlusion_among(&self.sights, sin_lat, cos_lat, sin_lon, cos_lon)
+            let moons = occlusion_among(&self.sights, sin_lat, cos_lat, sin_lon, cos_lon);
+            match &self.ring {
+                Some(ring) => moons
+                    .with_ring_transmission(ring.transmission(sin_lat, cos_lat, sin_lon, cos_lon)),
+                None => moons,
+            }
         };
         PlaceSky {
             sin_altitude: position.direction_enu.z,
@@ -199,6 +214,7 @@ impl StarFrame {
             hour_angle_0_rad: self.hour_angle_0_rad(),
             sense: self.sense,
             sights: self.sights.clone(),
+            ring: self.ring.clone(),
         }
     }
 }
@@ -290,6 +306,7 @@ pub struct StarFrameF32 {
     hour_angle_0_rad: f64,
     sense: f64,
     sights: Vec<OccluderSight>,
+    ring: Option<RingSight>,
 }
 
 impl StarFrameF32 {
@@ -320,7 +337,7 @@ impl StarFrameF32 {
 
     /// See [`StarFrame::eclipse_possible`].
     pub fn eclipse_possible(&self) -> bool {
-        !self.sights.is_empty()
+        !self.sights.is_empty() || self.ring.is_some()
     }
 
     /// The star seen from `place`.
@@ -331,7 +348,7 @@ impl StarFrameF32 {
         let sin_alt =
             (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
         let clear = self.toa_flux_w_m2 * sin_alt.max(0.0);
-        let hidden = if self.sights.is_empty() || sin_alt <= 0.0 {
+        let hidden = if (self.sights.is_empty() && self.ring.is_none()) || sin_alt <= 0.0 {
             0.0
         } else {
             self.hidden_fraction(place)
@@ -347,13 +364,17 @@ impl StarFrameF32 {
     /// The eclipse path, kept out of line so the common path stays small.
     #[inline(never)]
     fn hidden_fraction(&self, place: &PlaceF32) -> f32 {
-        occlusion_among(
-            &self.sights,
+        let p = [
             f64::from(place.sin_lat),
             f64::from(place.cos_lat),
             f64::from(place.sin_lon),
             f64::from(place.cos_lon),
-        )
+        ];
+        let moons = occlusion_among(&self.sights, p[0], p[1], p[2], p[3]);
+        match &self.ring {
+            Some(ring) => moons.with_ring_transmission(ring.transmission(p[0], p[1], p[2], p[3])),
+            None => moons,
+        }
         .hidden_fraction as f32
     }
 }

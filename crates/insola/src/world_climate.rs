@@ -141,6 +141,12 @@ impl Planet {
     pub fn equilibrate_climate(&self) -> Result<ClimateCycle, ClimateError> {
         let spec = self.climate_spec();
         let forcing = self.annual_forcing(spec.steps_per_year);
+        if self.daily_mean_needs_quadrature() {
+            // The daily mean under a ring (see `crate::rings::daily_mean`).
+            let grid = crate::climate::ClimateGrid::new(spec.bands)?;
+            let table = self.ring_band_insolation(&forcing, &grid, spec.steps_per_year)?;
+            return crate::climate::equilibrate_with_insolation(&spec, &forcing, table);
+        }
         equilibrate(&spec, &forcing)
     }
 

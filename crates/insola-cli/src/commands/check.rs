@@ -79,6 +79,9 @@ pub struct Facts {
     pub habitability: Vec<super::check_habitability::Habitability>,
     /// The map climate the habitability warnings come from, in words.
     pub habitability_from: String,
+    /// The ring's annuli and their solstice shadow (left out on worlds without a ring).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ring: Option<Vec<super::ring::AnnulusFacts>>,
 }
 
 /// The calendar in a few numbers.
@@ -230,6 +233,7 @@ pub fn facts(p: &Planet) -> Facts {
         warnings,
         habitability: Vec::new(),
         habitability_from: String::new(),
+        ring: super::ring::facts(p),
     }
 }
 
@@ -397,6 +401,9 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     for line in super::calendar::season_lines(&f.season_dates, &f.season_wander) {
         say!("  {line}");
+    }
+    if let Some(annuli) = &f.ring {
+        super::ring::print_facts(annuli);
     }
     if f.habitability.is_empty() {
         say!(

@@ -96,6 +96,9 @@ pub struct ClimateReport {
     /// With `--land`: land and sea apart from the map climate.
     #[serde(skip_serializing_if = "Option::is_none")]
     pub land_sea: Option<super::climate_land::LandSeaReport>,
+    /// The sunlight the ring's shadow takes from the forcing (left out without a ring).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ring: Option<super::ring::RingClimateNote>,
 }
 
 /// One tilt of an obliquity sweep.
@@ -171,6 +174,7 @@ pub fn report(p: &Planet, c: &ClimateCycle) -> ClimateReport {
         converged: c.converged(),
         residual_k: c.residual_k(),
         land_sea: None,
+        ring: super::ring::climate_note(p),
     }
 }
 
@@ -329,6 +333,14 @@ pub fn run(args: Args) -> Result<(), String> {
         r.years_to_equilibrium,
         r.residual_k
     );
+    if let Some(ring) = &r.ring {
+        say!(
+            "  ring shadow in the forcing: {:.1} W/m² of the global annual-mean sunlight, most at {:.1}° ({:.1} W/m²)",
+            ring.global_loss_w_m2,
+            ring.largest_loss_lat_deg,
+            ring.largest_loss_w_m2
+        );
+    }
     say!(
         "{:>7} {:>7} {:>7} {:>7} {:>5}  summary",
         "lat °",

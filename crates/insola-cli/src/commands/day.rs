@@ -69,6 +69,9 @@ pub struct DayReport {
     pub astronomical_dawn_h: Option<f64>,
     /// Astronomical dusk, local hours.
     pub astronomical_dusk_h: Option<f64>,
+    /// The ring's shadow over the place this day (left out when there is none).
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub ring_shadow: Vec<super::ring::ShadowSpan>,
 }
 
 /// Builds the report from the core's events.
@@ -99,6 +102,7 @@ pub fn report(p: &Planet, day: i64, ev: &DayEvents) -> DayReport {
         nautical_dusk_h,
         astronomical_dawn_h,
         astronomical_dusk_h,
+        ring_shadow: Vec::new(),
     }
 }
 
@@ -147,7 +151,9 @@ pub fn run(args: Args) -> Result<(), String> {
         args.utc.as_deref(),
         args.at.lon,
     )?;
-    let r = report(&p, day, &p.day_events(day, place));
+    let ev = p.day_events(day, place);
+    let mut r = report(&p, day, &ev);
+    r.ring_shadow = super::ring::day_spans(&p, place, ev.day_start_s, ev.day_length_s);
     if args.json {
         return super::output::print_json(&r);
     }
@@ -197,5 +203,15 @@ pub fn run(args: Args) -> Result<(), String> {
         hm(r.astronomical_dawn_h),
         hm(r.astronomical_dusk_h)
     );
+    for s in &r.ring_shadow {
+        say!(
+            "  ring shadow (annulus {})  {} – {}",
+            s.annulus,
+            s.enters_h
+                .map_or_else(|| "before the day".into(), |h| hm(Some(h))),
+            s.leaves_h
+                .map_or_else(|| "past the day".into(), |h| hm(Some(h)))
+        );
+    }
     Ok(())
 }

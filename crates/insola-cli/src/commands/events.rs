@@ -42,8 +42,8 @@ pub struct Args {
     #[arg(long, allow_hyphen_values = true)]
     to_date: Option<String>,
     /// Which events, comma-separated: rise-set, transit, twilight, day, year, season,
-    /// moon-phase, star-eclipse, moon-eclipse; `eclipse` for both eclipse kinds; `all`
-    /// (default: all but day).
+    /// moon-phase, star-eclipse, moon-eclipse, ring-shadow, ring-plane; `eclipse` for both
+    /// eclipse kinds; `all` (default: all but day).
     #[arg(long, value_delimiter = ',')]
     kinds: Vec<String>,
     /// Print JSON instead of a table.
@@ -146,6 +146,7 @@ pub fn describe(p: &Planet, kind: &SkyEventKind) -> String {
         SkyEventKind::StarEclipse { star, by, stage: s } => {
             let by = match by {
                 Occluder::Moon(i) => moon_name(p, *i),
+                Occluder::Ring => "the ring".into(),
             };
             format!(
                 "eclipse of the {} by {by} {}",
@@ -155,6 +156,18 @@ pub fn describe(p: &Planet, kind: &SkyEventKind) -> String {
         }
         SkyEventKind::MoonEclipse { moon, stage: s } => {
             format!("eclipse of {} {}", moon_name(p, *moon), stage(s))
+        }
+        SkyEventKind::RingShadow { stage, annulus } => {
+            let name = p
+                .ring()
+                .and_then(|r| r.annuli.get(*annulus))
+                .map_or(String::new(), |a| a.name.clone());
+            let what = if name.is_empty() {
+                format!("annulus {annulus}")
+            } else {
+                name
+            };
+            format!("ring shadow ({what}) {stage}")
         }
         other => other.to_string(),
     }

@@ -17,5 +17,6 @@ pub mod map_land;
 pub mod map_zonal;
 pub mod output;
 pub mod plot;
+pub mod ring;
 pub mod sky;
 pub mod year;

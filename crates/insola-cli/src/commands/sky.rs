@@ -91,12 +91,16 @@ pub struct SkyReport {
     pub light_cct_k: f64,
     /// Sky colour, linear sRGB (max 1).
     pub sky_rgb_linear: [f64; 3],
-    /// Fraction of the star's disc covered by moons.
+    /// Fraction of the star's light removed by moons covering its disc and by the ring's
+    /// shadow.
     pub star_eclipse_fraction: f64,
     /// Twilight phase: day, civil, nautical, astronomical or night.
     pub twilight: String,
     /// Each moon.
     pub moons: Vec<MoonReport>,
+    /// The ring in the sky and its shadow here (left out on worlds without a ring).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub ring: Option<super::ring::RingSkyReport>,
 }
 
 /// One moon in the sky report.
@@ -192,6 +196,7 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
                 eclipse_fraction: m.eclipse_fraction,
             })
             .collect(),
+        ring: super::ring::sky(p, t, place),
     }
 }
 
@@ -323,6 +328,9 @@ pub fn run(args: Args) -> Result<(), String> {
         "            top-of-atmosphere insolation {:.1} W/m²",
         r.toa_insolation_w_m2
     );
+    if let Some(ring) = &r.ring {
+        super::ring::print_sky(ring);
+    }
     for m in &r.moons {
         say!(
             "  moon {:<10} altitude {:7.2}°  azimuth {:7.2}°  lit {:5.1} %  {:.3e} lx{}",

@@ -75,7 +75,7 @@ fn parse_window_size(text: &str) -> Result<(u32, u32), String> {
 #[derive(Parser, Debug, Clone)]
 #[command(about = "A small place on an invented world, lit by Insola")]
 pub struct SceneOptions {
-    /// World to start on: verdance, calvenne or oromar.
+    /// World to start on: verdance, calvenne, oromar or thalcary.
     #[arg(long, default_value = "verdance", value_parser = clap::builder::PossibleValuesParser::new(world_names()))]
     pub world: String,
     /// Latitude of the place, degrees north (negative: south).

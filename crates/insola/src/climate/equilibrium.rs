@@ -75,6 +75,19 @@ pub fn equilibrate(
     equilibrate_model(&model, Some(forcing), &Start::SteadyAnnualMean)
 }
 
+/// [`equilibrate`] with a band table computed elsewhere (the daily mean under a ring,
+/// [`crate::Planet::ring_band_insolation`]); `forcing` is still the orbit's, kept for the
+/// day-night queries.
+pub fn equilibrate_with_insolation(
+    spec: &ClimateSpec,
+    forcing: &AnnualForcing,
+    insolation: BandInsolation,
+) -> Result<ClimateCycle, ClimateError> {
+    spec.validate("climate")?;
+    let model = EnergyBalanceModel::new(spec, insolation)?;
+    equilibrate_model(&model, Some(forcing), &Start::SteadyAnnualMean)
+}
+
 /// The periodic state of a prepared model from a chosen start. `forcing` is kept in the result
 /// for day-night queries (without it the day-night deviation is zero).
 pub fn equilibrate_model(

@@ -132,6 +132,27 @@ impl BandInsolation {
         })
     }
 
+    /// A table from its parts: `w_m2` row-major by step (`steps × bands` values, W m⁻²) and
+    /// the insolation-weighted mean cosine of the zenith angle per band, if known (for tables
+    /// computed elsewhere, such as the daily mean under a ring,
+    /// [`crate::Planet::ring_band_insolation`]).
+    pub(crate) fn from_table_parts(
+        steps: usize,
+        bands: usize,
+        year_s: f64,
+        w_m2: Vec<f64>,
+        mean_cos_zenith: Option<Vec<f64>>,
+    ) -> Self {
+        debug_assert_eq!(w_m2.len(), steps * bands);
+        BandInsolation {
+            steps,
+            bands,
+            year_s,
+            w_m2,
+            mean_cos_zenith,
+        }
+    }
+
     /// A table from a function `q(x, year_fraction)` in W m⁻², `x = sin φ` at band centres —
     /// for idealised forcings such as the Legendre forms used in analytic checks. Non-finite or
     /// negative values are an error naming `forcing.insolation`.

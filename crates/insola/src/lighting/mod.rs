@@ -88,8 +88,9 @@ pub struct LightingState {
     pub mode: LightMode,
     /// The star.
     pub star: BodyLight,
-    /// Fraction of the star's disc covered by moons (solar eclipse), 0–1; already applied to
-    /// `star.illuminance_lux`, the sky light and `toa_insolation_w_m2` (see
+    /// Fraction of the star's light removed by moons covering its disc (solar eclipse) and
+    /// by the ring's shadow, 0–1 ([`crate::occlusion::Occlusion::hidden_fraction`]); already
+    /// applied to `star.illuminance_lux`, the sky light and `toa_insolation_w_m2` (see
     /// [`crate::occlusion`]).
     pub star_eclipse_fraction: f64,
     /// The occluder hiding the most of the star, if any.

@@ -15,6 +15,11 @@
 //!   angle, which stays nearly fixed in each column (it wanders only with the equation of time
 //!   of an eccentric orbit), so the flux is `S cos z` with `z` the angle from the substellar
 //!   point, zero on the night side.
+//!
+//! On a world whose ring casts a shadow ([`Planet::daily_mean_needs_quadrature`]) the daily
+//! mean is the quadrature under the ring ([`Planet::ring_band_insolation`]) and the two
+//! instantaneous forms multiply each cell's flux by the ring's transmission there
+//! ([`crate::rings`]).
 
 use std::f64::consts::TAU;
 
@@ -67,6 +72,8 @@ pub struct MapForcing {
     suns: Vec<StepSun>,
     /// The orbit's declination and distance samples, for the day-night layer of queries.
     annual: Option<AnnualForcing>,
+    /// The ring, for the instantaneous forms (`None` without a shadow-casting ring).
+    ring: Option<crate::rings::shadow::RingGeometry>,
 }
 
 impl MapForcing {
@@ -84,6 +91,7 @@ impl MapForcing {
             daily: Some(daily),
             suns: Vec::new(),
             annual: Some(forcing.clone()),
+            ring: None,
         })
     }
 
@@ -108,6 +116,7 @@ impl MapForcing {
             daily: Some(table),
             suns: Vec::new(),
             annual: None,
+            ring: None,
         })
     }
 
@@ -121,6 +130,19 @@ impl MapForcing {
         let locked = planet.spin().is_tidally_locked();
         let day_s = planet.day_s();
         if !locked && day_s < SLOW_DAY_STEPS * dt {
+            if planet.daily_mean_needs_quadrature() {
+                // The daily mean under a ring (see `crate::rings::daily_mean`).
+                let daily = planet.ring_band_insolation(&annual, grid.rows(), steps)?;
+                return Ok(MapForcing {
+                    mode: ForcingMode::DailyMean,
+                    steps,
+                    year_s,
+                    daily: Some(daily),
+                    suns: Vec::new(),
+                    annual: Some(annual),
+                    ring: None,
+                });
+            }
             return Self::daily_mean(&annual, grid, steps);
         }
         let sense = if planet.is_retrograde() { -1.0 } else { 1.0 };
@@ -167,6 +189,7 @@ impl MapForcing {
             daily: None,
             suns,
             annual: Some(annual),
+            ring: planet.ring_geometry(),
         })
     }
 
@@ -207,6 +230,22 @@ impl MapForcing {
         scratch: &mut [f64],
         out: &mut [f64],
     ) {
+        self.fill_with_ring(k, grid, cos_lon, sin_lon, scratch, out, true);
+    }
+
+    /// [`MapForcing::fill`], with the ring's transmission applied or not (the clear flux gives
+    /// the cosine of the zenith angle that weighs the sky albedo).
+    #[allow(clippy::too_many_arguments)]
+    fn fill_with_ring(
+        &self,
+        k: usize,
+        grid: &MapGrid,
+        cos_lon: &[f64],
+        sin_lon: &[f64],
+        scratch: &mut [f64],
+        out: &mut [f64],
+        apply_ring: bool,
+    ) {
         let cols = grid.columns();
         let k = k % self.steps;
         if let Some(daily) = &self.daily {
@@ -228,6 +267,17 @@ impl MapForcing {
             let (a, b) = (s.flux_w_m2 * sp * s.sin_decl, s.flux_w_m2 * cp * s.cos_decl);
             for (q, &c) in row.iter_mut().zip(scratch.iter()) {
                 *q = (a + b * c).max(0.0);
+            }
+            if let (Some(ring), true) = (&self.ring, apply_ring) {
+                // The star in the rotating frame: h0 = θ − α is the geometric hour angle at
+                // longitude 0, so the star stands at longitude −h0.
+                let star = glam::DVec3::new(s.cos_decl * ch, -s.cos_decl * sh, s.sin_decl);
+                for ((q, &cl), &sl) in row.iter_mut().zip(cos_lon).zip(sin_lon) {
+                    if *q > 0.0 {
+                        let n = glam::DVec3::new(cp * cl, cp * sl, sp);
+                        *q *= ring.shadow(n, star).transmission;
+                    }
+                }
             }
         }
     }
@@ -276,9 +326,25 @@ impl MapForcing {
         let mut scratch = vec![0.0; cols];
         let mut q = vec![0.0; n];
         let (mut sum_q, mut sum_qmu) = (vec![0.0; n], vec![0.0; n]);
+        let mut clear = if self.ring.is_some() {
+            vec![0.0; n]
+        } else {
+            Vec::new()
+        };
         for k in 0..self.steps {
             self.fill(k, grid, &cos_lon, &sin_lon, &mut scratch, &mut q);
             let flux = self.suns[k].flux_w_m2;
+            if self.ring.is_some() {
+                // μ from the clear flux; the weight is the sunlight under the ring.
+                self.fill_with_ring(k, grid, &cos_lon, &sin_lon, &mut scratch, &mut clear, false);
+                for (((sq, sqm), &qk), &ck) in
+                    sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q).zip(&clear)
+                {
+                    *sq += qk;
+                    *sqm += qk * ck / flux;
+                }
+                continue;
+            }
             for ((sq, sqm), &qk) in sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q) {
                 *sq += qk;
                 // μ = Q / (S/ρ²): the weight Q is the sunlight itself.

@@ -124,6 +124,8 @@ impl Planet {
         for by in occluders {
             let followed = match by {
                 crate::occlusion::Occluder::Moon(i) => filter.follows(SkyBody::Moon(i)),
+                // Not in `occluders()`; the ring's shadow has its own finder (`ring.rs`).
+                crate::occlusion::Occluder::Ring => false,
             };
             let Some(motion) = self.occluder_motion(by).filter(|_| followed) else {
                 continue;

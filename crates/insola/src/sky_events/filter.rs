@@ -25,11 +25,15 @@ pub enum EventGroup {
     StarEclipse,
     /// [`SkyEventKind::MoonEclipse`].
     MoonEclipse,
+    /// [`SkyEventKind::RingShadow`].
+    RingShadow,
+    /// [`SkyEventKind::RingPlaneCrossing`].
+    RingPlane,
 }
 
 impl EventGroup {
     /// Every group.
-    pub const ALL: [EventGroup; 9] = [
+    pub const ALL: [EventGroup; 11] = [
         EventGroup::RiseSet,
         EventGroup::Transit,
         EventGroup::Twilight,
@@ -39,10 +43,13 @@ impl EventGroup {
         EventGroup::MoonPhase,
         EventGroup::StarEclipse,
         EventGroup::MoonEclipse,
+        EventGroup::RingShadow,
+        EventGroup::RingPlane,
     ];
 
     /// The group's short name, as [`EventGroup::from_name`] reads it: `rise-set`, `transit`,
-    /// `twilight`, `day`, `year`, `season`, `moon-phase`, `star-eclipse`, `moon-eclipse`.
+    /// `twilight`, `day`, `year`, `season`, `moon-phase`, `star-eclipse`, `moon-eclipse`,
+    /// `ring-shadow`, `ring-plane`.
     pub fn name(self) -> &'static str {
         match self {
             EventGroup::RiseSet => "rise-set",
@@ -54,6 +61,8 @@ impl EventGroup {
             EventGroup::MoonPhase => "moon-phase",
             EventGroup::StarEclipse => "star-eclipse",
             EventGroup::MoonEclipse => "moon-eclipse",
+            EventGroup::RingShadow => "ring-shadow",
+            EventGroup::RingPlane => "ring-plane",
         }
     }
 
@@ -87,6 +96,8 @@ impl SkyEventKind {
             SkyEventKind::MoonPhase { .. } => EventGroup::MoonPhase,
             SkyEventKind::StarEclipse { .. } => EventGroup::StarEclipse,
             SkyEventKind::MoonEclipse { .. } => EventGroup::MoonEclipse,
+            SkyEventKind::RingShadow { .. } => EventGroup::RingShadow,
+            SkyEventKind::RingPlaneCrossing { .. } => EventGroup::RingPlane,
         }
     }
 }

@@ -66,6 +66,12 @@ impl Planet {
                 self.moon_eclipses_into(moon, from_s, to_s, out);
             }
         }
+        if filter.has(EventGroup::RingShadow) {
+            self.ring_shadow_events_into(place, from_s, to_s, out);
+        }
+        if filter.has(EventGroup::RingPlane) {
+            self.ring_plane_crossings_into(from_s, to_s, out);
+        }
         out[start..].sort_by(|a, b| {
             a.at_s
                 .total_cmp(&b.at_s)
@@ -125,6 +131,9 @@ impl Planet {
         if filter.has(EventGroup::NewDay) {
             steps.push(self.day_s());
         }
+        if filter.has(EventGroup::RingShadow) && self.has_ring_shadow() {
+            steps.push(self.ring_shadow_step_s());
+        }
         for moon in self.followed_moons(filter) {
             if sky {
                 steps.extend(self.moon_sky_step_s(moon));
@@ -176,5 +185,7 @@ fn same_instant_rank(kind: &SkyEventKind) -> u8 {
         EventGroup::MoonPhase => 6,
         EventGroup::StarEclipse => 7,
         EventGroup::MoonEclipse => 8,
+        EventGroup::RingShadow => 9,
+        EventGroup::RingPlane => 10,
     }
 }

@@ -80,6 +80,26 @@ impl std::fmt::Display for EclipseStage {
     }
 }
 
+/// The ring's shadow arriving at or leaving a place.
+#[derive(Debug, Clone, Copy, PartialEq, Eq, Hash, Serialize, Deserialize)]
+pub enum RingShadowStage {
+    /// The ring starts to take more than half of the star's beam
+    /// ([`crate::rings::RING_SHADOW_THRESHOLD`]).
+    Enters,
+    /// The ring no longer takes more than half of it.
+    Leaves,
+}
+
+impl std::fmt::Display for RingShadowStage {
+    /// `begins`, `ends`.
+    fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
+        f.write_str(match self {
+            RingShadowStage::Enters => "begins",
+            RingShadowStage::Leaves => "ends",
+        })
+    }
+}
+
 /// What happened. Every kind is tied to one place except moon phases, season marks, new years
 /// and moon eclipses, which are the same for the whole planet.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -135,6 +155,19 @@ pub enum SkyEventKind {
         /// Which stage; `Greatest` carries the fraction of the moon's starlight removed.
         stage: EclipseStage,
     },
+    /// The ring's shadow enters or leaves the place (see [`crate::rings`]).
+    RingShadow {
+        /// Entering or leaving.
+        stage: RingShadowStage,
+        /// The annulus casting it: the one entered, or the one just left (world-file order).
+        annulus: usize,
+    },
+    /// The star crosses the ring plane (the equatorial plane: at the equinoxes), so the ring's
+    /// lit face changes; the same instant everywhere.
+    RingPlaneCrossing {
+        /// `true` going north (the north face becomes the lit one).
+        northward: bool,
+    },
 }
 
 impl std::fmt::Display for SkyEventKind {
@@ -156,6 +189,14 @@ impl std::fmt::Display for SkyEventKind {
             SkyEventKind::MoonEclipse { moon, stage } => {
                 write!(f, "eclipse of moon {moon} {stage}")
             }
+            SkyEventKind::RingShadow { stage, annulus } => {
+                write!(f, "ring shadow (annulus {annulus}) {stage}")
+            }
+            SkyEventKind::RingPlaneCrossing { northward } => write!(
+                f,
+                "star crosses the ring plane going {}",
+                if *northward { "north" } else { "south" }
+            ),
         }
     }
 }

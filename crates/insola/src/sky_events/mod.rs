@@ -1,6 +1,8 @@
 //! Every event of the sky over any interval, in time order: rise, set and transit of the star
 //! and each moon, the twilight boundaries, new days and years, equinoxes and solstices, moon
-//! phases, eclipses of the star and of the moons.
+//! phases, eclipses of the star and of the moons, and on ringed worlds the ring's shadow and the
+//! star's crossings of the ring plane ([`SkyEventKind::RingShadow`],
+//! [`SkyEventKind::RingPlaneCrossing`]; see `ring.rs`).
 //!
 //! Ask [`Planet::sky_events_between`] (or [`Planet::sky_events_into`] to reuse a buffer) for
 //! a place, an interval and an [`EventFilter`]; each [`SkyEvent`] carries its world instant
@@ -20,15 +22,16 @@
 //!   model's instant; season marks, new days and new years are exact (no search).
 //! - **Order**: by instant; events at the same instant in a fixed order — new year, new day,
 //!   season mark, then twilight, rise/set, transit, moon phase, eclipse of the star, eclipse of
-//!   a moon; within one kind in the order the search found them (star before moons, moons in
-//!   world-file order).
+//!   a moon, ring shadow, ring-plane crossing; within one kind in the order the search found
+//!   them (star before moons, moons in world-file order).
 //! - **One rule per decision**: rise and set are where the body's light turns on and off
 //!   (`BodyLight::is_up`: centre strictly above [`Planet::standard_rise_altitude_rad`] or
 //!   [`Planet::moon_rise_altitude_rad`]); twilight boundaries are where
 //!   [`crate::light::TwilightPhase::from_altitude`] changes; eclipses of the star are where an
-//!   occluder's cover in [`crate::occlusion`] turns positive, so a ring or second star added
-//!   there is found here unchanged; eclipses of a moon are where its
-//!   [`crate::moons::MoonView::shadow_fraction`] turns positive.
+//!   occluder's cover in [`crate::occlusion`] turns positive, so a second star added there is
+//!   found here unchanged; eclipses of a moon are where its
+//!   [`crate::moons::MoonView::shadow_fraction`] turns positive; the ring's shadow (no disc to
+//!   walk to) is where [`crate::rings::RingShadow::is_shadowed`] changes, sampled (`ring.rs`).
 //!
 //! # How the search works, and its limits
 //!
@@ -54,12 +57,13 @@ mod filter;
 mod finder;
 mod kind;
 mod moon;
+mod ring;
 mod star;
 
 pub use crate::search::EVENT_TIME_TOLERANCE_S;
 pub use filter::{EventFilter, EventGroup};
 pub use finder::MAX_EVENT_SAMPLES;
-pub use kind::{EclipseStage, MoonPhase, SkyBody, SkyEvent, SkyEventKind};
+pub use kind::{EclipseStage, MoonPhase, RingShadowStage, SkyBody, SkyEvent, SkyEventKind};
 
 #[allow(unused_imports)] // for the doc links above
 use crate::planet::Planet;

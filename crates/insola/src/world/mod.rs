@@ -9,6 +9,7 @@
 //! | `moons` | [`MoonSpec`] | `moon.rs` |
 //! | `calendar` | [`CalendarSpec`] | `calendar.rs` |
 //! | `calendar.moon_months` | [`MoonMonthsSpec`] | `moon_months.rs` |
+//! | `ring` | [`RingSpec`], [`AnnulusSpec`] | `ring.rs` |
 //! | `climate` | [`crate::climate::ClimateSpec`] | `climate/spec.rs` |
 
 mod atmosphere;
@@ -17,6 +18,7 @@ mod calendar;
 mod load;
 mod moon;
 mod moon_months;
+mod ring;
 mod spec;
 mod utc;
 mod validate;
@@ -27,6 +29,7 @@ pub use calendar::*;
 pub use load::*;
 pub use moon::*;
 pub use moon_months::*;
+pub use ring::*;
 pub use spec::*;
 pub use utc::*;
 pub use validate::*;

@@ -48,6 +48,9 @@ pub struct WorldSpec {
     /// Names and lengths of months, and the number of the first year.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub calendar: Option<super::CalendarSpec>,
+    /// A ring system in the planet's equatorial plane. Absent: no ring.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub ring: Option<super::RingSpec>,
 }
 
 /// The star. Give exactly one of `luminosity_l_sun` and `flux_at_mean_distance_w_m2`.

@@ -32,6 +32,9 @@ impl WorldSpec {
         for (i, moon) in self.moons.iter().enumerate() {
             moon.validate(&format!("moons[{i}]"), self)?;
         }
+        if let Some(ring) = &self.ring {
+            ring.validate("ring", self.body.unwrap_or_default().radius_km)?;
+        }
         if let Some(calendar) = &self.calendar {
             calendar.validate("calendar")?;
             if let Some(m) = &calendar.moon_months
