@@ -2,6 +2,7 @@
 
 pub mod angle;
 pub mod batch;
+pub mod binary_orbit;
 #[cfg(feature = "built-in-worlds")]
 pub mod built_in_worlds;
 pub mod calendar;
@@ -26,6 +27,7 @@ mod planet;
 mod search;
 pub mod seasons;
 mod sky;
+mod star_pair;
 pub mod sky_events;
 pub mod spin;
 pub mod star_frame;
