@@ -228,3 +228,6 @@ pub(crate) fn ecliptic_unit(instant: &StarInstant) -> DVec3 {
     let (sb, cb) = instant.ecliptic_latitude_rad.sin_cos();
     DVec3::new(cb * cl, cb * sl, sb)
 }
+
+#[cfg(test)]
+mod tests;
