@@ -59,7 +59,9 @@ impl std::fmt::Display for Occluder {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             Occluder::Moon(i) => write!(f, "moon {i}"),
-            Occluder::Star(i) => write!(f, "{}", crate::sky_events::SkyBody::Star(*i)),
+            // As `SkyBody` names stars: `star` for the primary, `star 1` for the companion.
+            Occluder::Star(0) => f.write_str("star"),
+            Occluder::Star(i) => write!(f, "star {i}"),
         }
     }
 }
