@@ -749,14 +749,22 @@ fn two_star_worlds_show_each_star() {
     assert!(v["companion"]["stability_limit_au"].as_f64().unwrap() < 1.19);
     let v = json(&["sky", "ambrivane", "--lat", "20", "--day", "10.4", "--json"]);
     assert_eq!(v["other_stars"][0]["star"], 1);
-    let text = String::from_utf8_lossy(
-        &insola(&["day", "ambrivane", "--lat", "20", "--day", "3"]).stdout,
-    )
-    .to_string();
+    let text =
+        String::from_utf8_lossy(&insola(&["day", "ambrivane", "--lat", "20", "--day", "3"]).stdout)
+            .to_string();
     assert!(text.contains("star 1: rise"), "{text}");
     let v = json(&[
-        "events", "ambrivane", "--lat", "10", "--from", "0", "--to", "40", "--kinds",
-        "eclipse,rise-set", "--json",
+        "events",
+        "ambrivane",
+        "--lat",
+        "10",
+        "--from",
+        "0",
+        "--to",
+        "40",
+        "--kinds",
+        "eclipse,rise-set",
+        "--json",
     ]);
     let texts: Vec<&str> = v["events"]
         .as_array()
@@ -765,11 +773,25 @@ fn two_star_worlds_show_each_star() {
         .map(|e| e["text"].as_str().unwrap())
         .collect();
     assert!(texts.iter().any(|t| t.starts_with("companion rises")));
-    assert!(texts.iter().any(|t| t.starts_with("eclipse of the primary by the companion")));
-    assert!(texts.iter().any(|t| t.starts_with("eclipse of the companion by the primary")));
-    let csv = String::from_utf8_lossy(&insola(&["year", "ambrivane", "--lat", "30", "--csv"]).stdout)
-        .to_string();
-    assert!(csv.lines().next().unwrap().ends_with(",companion_insolation_w_m2"));
+    assert!(
+        texts
+            .iter()
+            .any(|t| t.starts_with("eclipse of the primary by the companion"))
+    );
+    assert!(
+        texts
+            .iter()
+            .any(|t| t.starts_with("eclipse of the companion by the primary"))
+    );
+    let csv =
+        String::from_utf8_lossy(&insola(&["year", "ambrivane", "--lat", "30", "--csv"]).stdout)
+            .to_string();
+    assert!(
+        csv.lines()
+            .next()
+            .unwrap()
+            .ends_with(",companion_insolation_w_m2")
+    );
     // The real two-star system is a marked reference: its output carries the caution.
     for cmd in ["sky", "day", "year"] {
         let day = if cmd == "sky" { "10.5" } else { "3" };

@@ -224,7 +224,10 @@ mod tests {
             assert!(moment.length() < 1e-9 * sun.length(), "{moment}");
         }
         let mean_offset_km = pair.separation_m * 0.000954786 / (1.0 + 0.000954786) / 1000.0;
-        assert!((mean_offset_km - 742_000.0).abs() < 2_000.0, "{mean_offset_km}");
+        assert!(
+            (mean_offset_km - 742_000.0).abs() < 2_000.0,
+            "{mean_offset_km}"
+        );
         assert!((mean_offset_km / 695_700.0 - 1.07).abs() < 0.01);
         // Jupiter's period 4332.59 d (fact sheet, from memory) from Kepler's third law.
         assert!((pair.period_s / SECONDS_PER_DAY / 4332.59 - 1.0).abs() < 2e-3);

@@ -339,17 +339,19 @@ impl Planet {
                 .map_or(f64::INFINITY, |v| {
                     v.elongation_rad - v.angular_radius_rad - instant.angular_radius_rad
                 }),
-            Occluder::Star(k) => self.star_on_star(k, instant, place).map_or(f64::INFINITY, |v| {
-                let gap = v.elongation_rad - v.occluder_radius_rad - instant.angular_radius_rad;
-                if v.nearer {
-                    gap
-                } else {
-                    // Behind: never an eclipse. Lifted by twice the discs so it stays positive
-                    // through the conjunction; the order flips only far from conjunction, where
-                    // the gap is large, so the lift never hides a contact.
-                    gap + 2.0 * (v.occluder_radius_rad + instant.angular_radius_rad)
-                }
-            }),
+            Occluder::Star(k) => self
+                .star_on_star(k, instant, place)
+                .map_or(f64::INFINITY, |v| {
+                    let gap = v.elongation_rad - v.occluder_radius_rad - instant.angular_radius_rad;
+                    if v.nearer {
+                        gap
+                    } else {
+                        // Behind: never an eclipse. Lifted by twice the discs so it stays positive
+                        // through the conjunction; the order flips only far from conjunction, where
+                        // the gap is large, so the lift never hides a contact.
+                        gap + 2.0 * (v.occluder_radius_rad + instant.angular_radius_rad)
+                    }
+                }),
         }
     }
 
@@ -454,10 +456,8 @@ impl Planet {
         let star_rate = (target.fastest_m_s + v_obs) / (target.closest_m - planet_r).max(1.0);
         let star_r_max =
             crate::light::angular_radius(target.largest_radius_m, target.closest_m - planet_r);
-        let star_contact = crate::light::angular_radius(
-            target.smallest_radius_m,
-            target.farthest_m + planet_r,
-        );
+        let star_contact =
+            crate::light::angular_radius(target.smallest_radius_m, target.farthest_m + planet_r);
         match occluder {
             Occluder::Moon(i) => {
                 let orbit = self.moon_orbits().get(i)?;

@@ -158,7 +158,11 @@ pub fn describe(p: &Planet, kind: &SkyEventKind) -> String {
                 Occluder::Moon(i) => moon_name(p, *i),
                 Occluder::Star(k) => format!("the {}", star_name(p, *k)),
             };
-            format!("eclipse of the {} by {by} {}", star_name(p, *star), stage(s))
+            format!(
+                "eclipse of the {} by {by} {}",
+                star_name(p, *star),
+                stage(s)
+            )
         }
         SkyEventKind::MoonEclipse { moon, stage: s } => {
             format!("eclipse of {} {}", moon_name(p, *moon), stage(s))

@@ -125,7 +125,11 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.csv {
         say!(
             "day,date,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2{}",
-            if two { ",companion_insolation_w_m2" } else { "" }
+            if two {
+                ",companion_insolation_w_m2"
+            } else {
+                ""
+            }
         );
         for r in &rows {
             say!(

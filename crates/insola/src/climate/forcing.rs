@@ -175,7 +175,13 @@ impl BandInsolation {
             weighted
                 .iter()
                 .zip(&totals)
-                .map(|(w, q)| if *q > 0.0 { (w / q).clamp(0.0, 1.0) } else { 0.0 })
+                .map(|(w, q)| {
+                    if *q > 0.0 {
+                        (w / q).clamp(0.0, 1.0)
+                    } else {
+                        0.0
+                    }
+                })
                 .collect(),
         );
         Ok(table)

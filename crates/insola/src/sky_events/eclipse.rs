@@ -128,9 +128,7 @@ impl Planet {
                     Occluder::Moon(i) => filter.follows(SkyBody::Moon(i)),
                     Occluder::Star(k) => filter.follows(SkyBody::Star(k)),
                 };
-                let Some(motion) = self
-                    .occluder_motion_against(by, star)
-                    .filter(|_| followed)
+                let Some(motion) = self.occluder_motion_against(by, star).filter(|_| followed)
                 else {
                     continue;
                 };

@@ -18,9 +18,10 @@ fn lone_and_paired(companion: &str) -> (Planet, Planet) {
         spin: (obliquity_deg: 21, solar_day_hours: 26),
         moons: [(name: "Pell", radius_km: 1900, distance_km: 390000, period_days: 29, phase_at_zero_deg: 10)]"#;
     let lone = Planet::new(&WorldSpec::from_ron_str(&format!("({base})")).unwrap()).unwrap();
-    let paired =
-        Planet::new(&WorldSpec::from_ron_str(&format!("({base}, companion: {companion})")).unwrap())
-            .unwrap();
+    let paired = Planet::new(
+        &WorldSpec::from_ron_str(&format!("({base}, companion: {companion})")).unwrap(),
+    )
+    .unwrap();
     (lone, paired)
 }
 
@@ -113,7 +114,13 @@ fn kepler_16_flux_follows_inverse_square_of_each_star() {
     let pair = StellarPair::new(spec.companion.as_ref().unwrap(), &spec.star);
     let l = [
         spec.star.luminosity_l_sun.unwrap() * SUN_LUMINOSITY_W,
-        spec.companion.as_ref().unwrap().star.luminosity_l_sun.unwrap() * SUN_LUMINOSITY_W,
+        spec.companion
+            .as_ref()
+            .unwrap()
+            .star
+            .luminosity_l_sun
+            .unwrap()
+            * SUN_LUMINOSITY_W,
     ];
     let (m1, m2) = (pair.primary_mass_m_sun, pair.companion_mass_m_sun);
     let (mut lo, mut hi) = (f64::INFINITY, 0.0f64);
@@ -132,7 +139,10 @@ fn kepler_16_flux_follows_inverse_square_of_each_star() {
         for k in 0..2 {
             let expected = l[k] / (4.0 * PI * d[k] * d[k]);
             let got = p.star_instant_of(k, t).unwrap().toa_flux_w_m2;
-            assert!((got / expected - 1.0).abs() < 1e-9, "star {k} at {t}: {got} vs {expected}");
+            assert!(
+                (got / expected - 1.0).abs() < 1e-9,
+                "star {k} at {t}: {got} vs {expected}"
+            );
             total += got;
         }
         lo = lo.min(total);
@@ -147,7 +157,10 @@ fn kepler_16_flux_follows_inverse_square_of_each_star() {
     let flux = |lum: f64, d_au: f64| lum / (4.0 * PI * (d_au * AU_M).powi(2));
     let bound_hi = flux(l[0], r[0] - s1[1]) + flux(l[1], r[0] - s2[1]);
     let bound_lo = flux(l[0], r[1] + s1[1]) + flux(l[1], r[1] + s2[1]);
-    assert!(hi <= bound_hi && lo >= bound_lo, "{lo} {hi} in {bound_lo} {bound_hi}");
+    assert!(
+        hi <= bound_hi && lo >= bound_lo,
+        "{lo} {hi} in {bound_lo} {bound_hi}"
+    );
     // And the swing is nearly the whole range the primary's swing gives: with it nearest
     // (r − s₁) and farthest (r + s₁) at some point of the pair's orbit (s₁ at least its
     // periapsis value), the ratio is at least ((r + s₁,min)/(r − s₁,min))² ≈ 1.28, and the
@@ -196,7 +209,10 @@ fn kepler_16_mutual_eclipses_recur_at_the_synodic_period_of_the_pair() {
             times.len()
         );
         let mean = (times[times.len() - 1] - times[0]) / (times.len() - 1) as f64;
-        assert!((mean - synodic).abs() < 0.3, "star {star}: mean interval {mean} d vs {synodic}");
+        assert!(
+            (mean - synodic).abs() < 0.3,
+            "star {star}: mean interval {mean} d vs {synodic}"
+        );
         for w in times.windows(2) {
             assert!((w[1] - w[0] - synodic).abs() < 5.5, "{} d", w[1] - w[0]);
             // In binary periods: each interval is the binary period stretched by the planet's
@@ -234,7 +250,10 @@ fn kepler_16_mutual_eclipses_recur_at_the_synodic_period_of_the_pair() {
             let a = p.star_instant_of(0, e.at_s).unwrap().angular_radius_rad;
             let b = p.star_instant_of(1, e.at_s).unwrap().angular_radius_rad;
             let expected = (b / a).powi(2);
-            assert!((fraction / expected - 1.0).abs() < 0.03, "{fraction} vs {expected}");
+            assert!(
+                (fraction / expected - 1.0).abs() < 0.03,
+                "{fraction} vs {expected}"
+            );
             assert!(fraction > 0.12 && fraction < 0.3, "{fraction}");
             checked += 1;
         }
@@ -333,12 +352,9 @@ fn two_star_climate_is_the_climate_of_the_summed_table() {
         })
         .unwrap();
     let model = crate::climate::EnergyBalanceModel::new(&spec, table).unwrap();
-    let theirs = crate::climate::equilibrate_model(
-        &model,
-        None,
-        &crate::climate::Start::SteadyAnnualMean,
-    )
-    .unwrap();
+    let theirs =
+        crate::climate::equilibrate_model(&model, None, &crate::climate::Start::SteadyAnnualMean)
+            .unwrap();
     for k in 0..ours.steps() {
         for (a, b) in ours.temperatures_c(k).iter().zip(theirs.temperatures_c(k)) {
             assert!((a - b).abs() < 1e-9, "step {k}: {a} vs {b}");
@@ -349,7 +365,11 @@ fn two_star_climate_is_the_climate_of_the_summed_table() {
     let alone = crate::climate::equilibrate(&spec, &p.annual_forcing(spec.steps_per_year))
         .unwrap()
         .global_mean_c();
-    assert!(ours.global_mean_c() > alone + 0.3, "{} vs {alone}", ours.global_mean_c());
+    assert!(
+        ours.global_mean_c() > alone + 0.3,
+        "{} vs {alone}",
+        ours.global_mean_c()
+    );
 }
 
 #[test]
@@ -402,5 +422,9 @@ fn daily_mean_of_two_stars_is_the_mean_of_the_day() {
         / 480.0;
     assert!((ours / fine - 1.0).abs() < 1e-4, "{ours} vs {fine}");
     let f: f64 = p.star_instants(t).iter().map(|i| i.toa_flux_w_m2).sum();
-    assert!(ours > 0.8 * f / PI && ours <= f / PI * 1.001, "{ours} vs {}", f / PI);
+    assert!(
+        ours > 0.8 * f / PI && ours <= f / PI * 1.001,
+        "{ours} vs {}",
+        f / PI
+    );
 }

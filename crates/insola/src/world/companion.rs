@@ -52,9 +52,9 @@
 use serde::{Deserialize, Serialize};
 
 use super::spec::{StarSpec, WorldSpec};
+use super::validate::{MAX_STAR_TEMPERATURE_K, MIN_STAR_TEMPERATURE_K};
 use crate::constants::{AU_M, SECONDS_PER_DAY};
 use crate::error::{SpecError, check_range, check_range_open_min};
-use super::validate::{MAX_STAR_TEMPERATURE_K, MIN_STAR_TEMPERATURE_K};
 
 /// Nominal solar mass parameter `G M☉`, m³ s⁻² (IAU 2015 Resolution B3, from memory).
 pub const SUN_GM_M3_S2: f64 = 1.327_124_4e20;
