@@ -30,7 +30,7 @@ mod sky;
 pub mod sky_events;
 pub mod spin;
 pub mod star_frame;
-mod star_pair;
+pub mod star_pair;
 pub mod star_track;
 pub mod world;
 mod world_climate;
