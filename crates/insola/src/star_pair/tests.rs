@@ -428,3 +428,65 @@ fn daily_mean_of_two_stars_is_the_mean_of_the_day() {
         f / PI
     );
 }
+
+#[test]
+fn star_on_star_bulk_sight_agrees_with_the_per_place_cover() {
+    // The bulk path of the occlusion seam (one sight per instant, then a few square roots per
+    // place) must give the per-place cover of the companion in front of the primary.
+    let p = kepler_16();
+    let place = Place::from_degrees(0.0, 0.0).unwrap();
+    let filter = EventFilter::only([crate::sky_events::EventGroup::StarEclipse]);
+    let events = p
+        .sky_events_between(place, 0.0, 120.0 * SECONDS_PER_DAY, &filter)
+        .unwrap();
+    let mut seen = 0;
+    for e in &events {
+        let SkyEventKind::StarEclipse { star, by, .. } = e.kind else {
+            continue;
+        };
+        let instant = p.star_instant_of(star, e.at_s + 600.0).unwrap();
+        let sights = p.occluders_in_reach(&instant);
+        let sight = sights.iter().find(|s| s.occluder == by).expect("in reach");
+        for (lat, lon) in [(0.0, 0.0), (30.0, 40.0), (-50.0, -100.0), (80.0, 170.0)] {
+            let place = Place::from_degrees(lat, lon).unwrap();
+            let a = sight.cover_at(place);
+            let b = p.occluder_cover(by, &instant, place);
+            assert!((a - b).abs() < 1e-12, "{a} vs {b}");
+            seen += 1;
+        }
+    }
+    assert!(seen >= 16);
+}
+
+#[test]
+fn a_wide_companion_wanders_in_distance_and_brightness() {
+    // A shining wide companion, 40 AU out on an eccentric orbit inclined by 30°: seen from the
+    // planet its distance follows the companion's orbit about the primary, within the planet's
+    // own 1 AU (triangle inequality), its flux L/(4π d²), and it stands off the ecliptic by up
+    // to about the inclination.
+    let (lone, p) = lone_and_paired(
+        r#"(star: (temperature_k: 4300, radius_r_sun: 0.7, luminosity_l_sun: 0.25, mass_m_sun: 0.7),
+            arrangement: Wide, orbit: (separation_au: 40, eccentricity: 0.3, inclination_deg: 30,
+            ascending_node_deg: 0, periapsis_longitude_deg: 90))"#,
+    );
+    assert!(p.has_shining_companion());
+    let pair = &p.companion().unwrap().pair;
+    let l = 0.25 * SUN_LUMINOSITY_W;
+    let (mut near, mut far, mut highest) = (f64::INFINITY, 0.0f64, 0.0f64);
+    for j in 0..400 {
+        let t = j as f64 / 400.0 * pair.period_s;
+        let i = p.star_instant_of(1, t).unwrap();
+        let d = i.distance_au * AU_M;
+        let r = pair.relative_position_m(t).length();
+        assert!((d - r).abs() <= 1.04 * AU_M, "{} vs {}", d / AU_M, r / AU_M);
+        assert!((i.toa_flux_w_m2 / (l / (4.0 * PI * d * d)) - 1.0).abs() < 1e-9);
+        near = near.min(i.distance_au);
+        far = far.max(i.distance_au);
+        highest = highest.max(i.ecliptic_latitude_rad.abs());
+    }
+    // Periapsis 40 (1 − 0.3) = 28 AU, apoapsis 52 AU, ± the planet's orbit.
+    assert!((near - 28.0).abs() < 1.1 && (far - 52.0).abs() < 1.1, "{near} {far}");
+    assert!((highest.to_degrees() - 30.0).abs() < 2.0, "{}", highest.to_degrees());
+    // The primary is where it was without the companion (the planet orbits it).
+    assert_eq!(p.star_instant(1.0e7), lone.star_instant(1.0e7));
+}
