@@ -119,7 +119,8 @@ impl Planet {
     }
 
     /// The orbit's forcing as the climate model takes it: `steps` samples of declination and
-    /// distance evenly spaced in time over one year, starting at time zero.
+    /// distance evenly spaced in time over one year, starting at time zero. On a world of two
+    /// stars this is the primary's; [`Planet::star_forcings`] gives each star's.
     pub fn annual_forcing(&self, steps: usize) -> AnnualForcing {
         let n = steps.max(1);
         let samples = (0..n)

@@ -219,6 +219,11 @@ pub fn run(args: Args) -> Result<(), String> {
             .as_ref()
             .map_or(String::new(), |w| format!(", weekday {w}"))
     );
+    if !r.other_stars.is_empty() {
+        say!(
+            "  primary (star 0); twilight below is the primary's, `insola events` gives the combined light's"
+        );
+    }
     match r.polar {
         Some(Polar::Day) => say!("  the star never sets (polar day)"),
         Some(Polar::Night) => say!("  the star never rises (polar night)"),

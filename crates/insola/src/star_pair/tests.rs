@@ -485,8 +485,43 @@ fn a_wide_companion_wanders_in_distance_and_brightness() {
         highest = highest.max(i.ecliptic_latitude_rad.abs());
     }
     // Periapsis 40 (1 − 0.3) = 28 AU, apoapsis 52 AU, ± the planet's orbit.
-    assert!((near - 28.0).abs() < 1.1 && (far - 52.0).abs() < 1.1, "{near} {far}");
-    assert!((highest.to_degrees() - 30.0).abs() < 2.0, "{}", highest.to_degrees());
+    assert!(
+        (near - 28.0).abs() < 1.1 && (far - 52.0).abs() < 1.1,
+        "{near} {far}"
+    );
+    assert!(
+        (highest.to_degrees() - 30.0).abs() < 2.0,
+        "{}",
+        highest.to_degrees()
+    );
     // The primary is where it was without the companion (the planet orbits it).
     assert_eq!(p.star_instant(1.0e7), lone.star_instant(1.0e7));
+}
+
+#[test]
+fn moons_are_measured_against_whichever_star_they_may_hide() {
+    // A moon's elongation from star k, as the occlusion seam uses it, is the angle between the
+    // topocentric directions to the moon and to that star (here the inclined wide companion,
+    // off the ecliptic), so a moon hides either star by the same cover function.
+    let (_, p) = lone_and_paired(
+        r#"(star: (temperature_k: 4300, radius_r_sun: 0.7, luminosity_l_sun: 0.25, mass_m_sun: 0.7),
+            arrangement: Wide, orbit: (separation_au: 40, eccentricity: 0.3, inclination_deg: 30,
+            periapsis_longitude_deg: 200, phase_at_zero_deg: 70))"#,
+    );
+    let place = Place::from_degrees(25.0, 60.0).unwrap();
+    for j in 0..30 {
+        let t = j as f64 * 3.1e5;
+        let companion = p.star_instant_of(1, t).unwrap();
+        assert!(companion.ecliptic_latitude_rad.abs() > 1e-3);
+        let view = p.moon_view(&companion, 0, place).unwrap();
+        let obs = p.observer_offset(&companion, place);
+        let to_star = p.star_vector_m(1, t).unwrap() - obs;
+        let to_moon = p.moon_orbits()[0].position_at(t) - obs;
+        let expected = crate::moons::angle_between(to_star, to_moon);
+        assert!((view.elongation_rad - expected).abs() < 1e-9, "{t}");
+        assert_eq!(
+            p.occluder_cover(Occluder::Moon(0), &companion, place),
+            view.star_covered_fraction
+        );
+    }
 }
