@@ -525,3 +525,23 @@ fn moons_are_measured_against_whichever_star_they_may_hide() {
         );
     }
 }
+
+#[test]
+fn a_star_frame_of_the_companion_agrees_with_its_lighting() {
+    // The bulk frame built from the companion's instant gives, place by place, the
+    // companion's own position, rise flag and dimmed insolation that the lighting state shows.
+    let p = kepler_16();
+    for j in 0..40 {
+        let t = j as f64 * 1.37e5;
+        let frame = p.star_frame_at(p.star_instant_of(1, t).unwrap());
+        for (lat, lon) in [(0.0, 0.0), (35.0, 80.0), (-60.0, -150.0)] {
+            let place = Place::from_degrees(lat, lon).unwrap();
+            let sky = frame.at(place);
+            let light = p.lighting(t, place, LightMode::Ground);
+            let c = &light.other_stars[0];
+            assert_eq!(sky.is_up, c.light.is_up);
+            close(sky.position.altitude_rad, c.light.altitude_rad, "altitude");
+            close(sky.toa_insolation_w_m2, c.toa_insolation_w_m2, "insolation");
+        }
+    }
+}
