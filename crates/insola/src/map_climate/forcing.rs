@@ -121,6 +121,20 @@ impl MapForcing {
         let locked = planet.spin().is_tidally_locked();
         let day_s = planet.day_s();
         if !locked && day_s < SLOW_DAY_STEPS * dt {
+            if planet.has_shining_companion() {
+                // Two suns: the sum of both stars' tables (see
+                // `BandInsolation::from_star_forcings`); the day-night layer keeps the
+                // primary's path. Slow rotators and locked worlds are forced by the primary
+                // alone for now.
+                let daily = BandInsolation::from_star_forcings(
+                    &planet.star_forcings(steps),
+                    grid.rows(),
+                    steps,
+                )?;
+                let mut forcing = Self::daily_mean(&annual, grid, steps)?;
+                forcing.daily = Some(daily);
+                return Ok(forcing);
+            }
             return Self::daily_mean(&annual, grid, steps);
         }
         let sense = if planet.is_retrograde() { -1.0 } else { 1.0 };
