@@ -19,8 +19,10 @@ use std::sync::Arc;
 use bevy::prelude::*;
 use bevy::tasks::{AsyncComputeTaskPool, Task, block_on, futures_lite::future};
 use insola::climate::ClimateError;
+use insola::map_climate::MapClimate;
 use insola::{Place, Planet, WorldClimate};
 
+use crate::map_climate::{ClimateSurface, MapClimateSlot, MapKey};
 use crate::season::ThermalSeason;
 use crate::world_asset::ActiveWorld;
 
@@ -61,6 +63,10 @@ pub struct SeasonalClimate {
     task: Option<(u64, Task<Result<WorldClimate, ClimateError>>)>,
     /// Why the climate of world `generation` could not be built.
     error: Option<(u64, String)>,
+    /// The map climate, when a [`ClimateSurface`] is given.
+    map: MapClimateSlot,
+    /// The world and surface the map climate must belong to (`None`: no surface).
+    map_key: Option<MapKey>,
 }
 
 impl SeasonalClimate {
@@ -78,6 +84,28 @@ impl SeasonalClimate {
     /// `true` while a new climate is being computed in the background.
     pub fn is_rebuilding(&self) -> bool {
         self.task.is_some()
+    }
+
+    /// The map climate of the current world and [`ClimateSurface`], once ready (`None`
+    /// without a surface, while it is computed, or if it could not be built).
+    pub fn map_model(&self) -> Option<&MapClimate> {
+        self.map.current(self.map_key).map(|m| m.as_ref())
+    }
+
+    /// The map climate, shared.
+    pub(crate) fn map_model_arc(&self) -> Option<Arc<MapClimate>> {
+        self.map.current(self.map_key).cloned()
+    }
+
+    /// `true` while the map climate is computed in the background.
+    pub fn is_map_rebuilding(&self) -> bool {
+        self.map.is_rebuilding()
+    }
+
+    /// Why the map climate of the current world and surface could not be built (the zonal
+    /// climate answers meanwhile; the plugin also logs it).
+    pub fn map_error(&self) -> Option<&str> {
+        self.map.error(self.map_key)
     }
 
     /// The model, once ready.
@@ -131,20 +159,45 @@ impl SeasonalClimate {
         Some(m.season(lat_rad, m.year_fraction(t_s)).into())
     }
 
-    /// Local temperature, °C, at `place` and world time `t_s`, with the day-night swing.
+    /// Local temperature, °C, at `place` and world time `t_s`, with the day-night swing: from
+    /// the map climate when one is ready ([`ClimateSurface`]), else from the zonal climate.
     pub fn local_temperature_c(&self, planet: &Planet, place: Place, t_s: f64) -> Option<f64> {
         let m = self.model()?;
         let h = planet.star_position(t_s, place).hour_angle_rad;
-        Some(m.temperature_c(place.latitude_rad, m.year_fraction(t_s), h))
+        let year_fraction = m.year_fraction(t_s);
+        if let Some(map) = self.map_model() {
+            return map
+                .local_temperature_c(
+                    place.latitude_rad,
+                    place.longitude_rad,
+                    year_fraction,
+                    h,
+                    planet.day_s(),
+                )
+                .ok();
+        }
+        Some(m.temperature_c(place.latitude_rad, year_fraction, h))
     }
 }
 
-/// Starts a background rebuild when the world changes and installs it when done.
-pub(crate) fn update_climate(world: Res<ActiveWorld>, mut climate: ResMut<SeasonalClimate>) {
+/// Starts a background rebuild when the world (or the [`ClimateSurface`]) changes and installs
+/// it when done.
+pub(crate) fn update_climate(
+    world: Res<ActiveWorld>,
+    surface: Option<Res<ClimateSurface>>,
+    mut climate: ResMut<SeasonalClimate>,
+) {
     let generation = world.generation();
     let Some(planet) = world.planet_arc() else {
         return;
     };
+    climate.map_key = surface
+        .as_ref()
+        .map(|s| (generation, s.last_changed().get()));
+    match (&surface, climate.map_key) {
+        (Some(surface), Some(key)) => climate.map.update(&planet, key, surface),
+        _ => climate.map.clear(),
+    }
     if let Some((task_generation, task)) = climate.task.as_mut()
         && let Some(built) = block_on(future::poll_once(task))
     {

@@ -21,13 +21,17 @@
 //! model directly; with more, they share a [`ClimateSnapshot`] that is rebuilt when the time of
 //! year has moved by [`TABLE_REFRESH_YEAR_FRACTION`], turned each update to the star's hour
 //! angle (so the day-night swing is current) and read bilinearly. Places whose position
-//! changed are updated on every frame in between.
+//! changed are updated on every frame in between. With a map climate
+//! ([`ClimateSurface`](crate::ClimateSurface)) the table is laid out by latitude and longitude
+//! from the map model at each update instead ([`MapClimate::place_table`]); a place's cost is
+//! the same.
 
 use std::sync::Arc;
 
 use bevy::prelude::*;
 use insola::climate::{ClimateSnapshot, PlaceCell, PlaceTable};
 use insola::error::QueryError;
+use insola::map_climate::MapClimate;
 use insola::{Place, PlaceF32, Planet, StarFrameF32, WorldClimate};
 
 use crate::climate::SeasonalClimate;
@@ -160,6 +164,13 @@ enum FrameClimate {
     },
     /// A shared table turned to this instant (many places).
     Table(Box<PlaceTable>),
+    /// One map-climate query per place (the zonal climate gives the season).
+    DirectMap {
+        map: Arc<MapClimate>,
+        zonal: Arc<WorldClimate>,
+        year_fraction: f64,
+        solar_day_s: f64,
+    },
 }
 
 /// One observer update: the core's star frame of the instant, the seasons of both
@@ -177,11 +188,48 @@ impl ObserverFrame {
     /// place (see [`ObserverFrame::with_table`] for many places).
     pub fn new(planet: &Planet, t_s: f64, climate: Option<&SeasonalClimate>) -> ObserverFrame {
         let mut frame = ObserverFrame::star_only(planet, t_s);
+        let map = climate.and_then(SeasonalClimate::map_model_arc);
         if let Some(model) = climate.and_then(SeasonalClimate::model_arc) {
-            frame.climate = FrameClimate::Direct {
-                year_fraction: model.year_fraction(t_s),
-                model,
+            let year_fraction = model.year_fraction(t_s);
+            frame.climate = match map {
+                Some(map) => FrameClimate::DirectMap {
+                    map,
+                    zonal: model,
+                    year_fraction,
+                    solar_day_s: planet.day_s(),
+                },
+                None => FrameClimate::Direct {
+                    year_fraction,
+                    model,
+                },
             };
+        }
+        frame
+    }
+
+    /// The frame of `planet` at `t_s`, with temperatures from the map climate `map` laid on a
+    /// shared latitude × longitude table for this instant ([`MapClimate::place_table`]); the
+    /// seasons come from the zonal `snapshot`.
+    pub fn with_map_table(
+        planet: &Planet,
+        t_s: f64,
+        map: &MapClimate,
+        year_fraction: f64,
+        snapshot: &ClimateSnapshot,
+    ) -> ObserverFrame {
+        let mut frame = ObserverFrame::star_only(planet, t_s);
+        let Some(seasons) = snapshot.seasons() else {
+            return frame;
+        };
+        let star = &frame.star;
+        let table = map.place_table(
+            year_fraction,
+            |lon| star.hour_angle_at_rad(lon),
+            planet.day_s(),
+            *seasons,
+        );
+        if let Ok(table) = table {
+            frame.climate = FrameClimate::Table(Box::new(table));
         }
         frame
     }
@@ -259,6 +307,20 @@ impl ObserverFrame {
                     model.season(lat, *year_fraction).into(),
                 )
             }
+            FrameClimate::DirectMap {
+                map,
+                zonal,
+                year_fraction,
+                solar_day_s,
+            } => {
+                let (lat, lon) = (place.latitude_rad(), place.longitude_rad());
+                let h = self.star.hour_angle_at_rad(lon);
+                let t = map.local_temperature_c(lat, lon, *year_fraction, h, *solar_day_s);
+                (
+                    t.map_or(f32::NAN, |t| t as f32),
+                    zonal.season(lat, *year_fraction).into(),
+                )
+            }
         }
     }
 }
@@ -269,7 +331,8 @@ pub(crate) struct ObserverCadence {
     last_real_s: Option<f64>,
     last_world_s: f64,
     generation: u64,
-    climate_ready: bool,
+    /// Whether the zonal climate was ready, and which map climate was current (by address).
+    climate_ready: (bool, Option<usize>),
     frame: ObserverFrame,
     /// The shared table, the climate model it came from and its year fraction.
     table: Option<(Arc<ClimateSnapshot>, Arc<WorldClimate>, f64)>,
@@ -315,7 +378,11 @@ pub(crate) fn update_observers(
     };
     // Without the climate part, observers report the sky and no temperature.
     let climate = climate.as_deref();
-    let climate_ready = climate.is_some_and(SeasonalClimate::is_ready);
+    let map = climate.and_then(SeasonalClimate::map_model_arc);
+    let climate_ready = (
+        climate.is_some_and(SeasonalClimate::is_ready),
+        map.as_ref().map(|m| Arc::as_ptr(m) as usize),
+    );
     let now_real = real.elapsed_secs_f64();
     let now_world = clock.world_time_s();
     let forced = cadence.last_real_s.is_none()
@@ -334,6 +401,12 @@ pub(crate) fn update_observers(
         // Counting stops at the threshold: a full count visits every entity.
         let many = observers.iter().take(TABLE_MIN_PLACES).count() == TABLE_MIN_PLACES;
         cadence.frame = match climate.and_then(SeasonalClimate::model_arc) {
+            Some(model) if many && map.is_some() => {
+                let year_fraction = model.year_fraction(now_world);
+                let snapshot = cadence.table(model.clone(), year_fraction);
+                let map = map.as_deref().expect("checked above");
+                ObserverFrame::with_map_table(planet, now_world, map, year_fraction, &snapshot)
+            }
             Some(model) if many => {
                 let snapshot = cadence.table(model.clone(), model.year_fraction(now_world));
                 ObserverFrame::with_table(planet, now_world, &snapshot)

@@ -11,6 +11,7 @@ mod bad_world_reloads;
 mod clock_and_notices;
 mod flash_guard;
 mod lights;
+mod map_climate;
 mod observers;
 mod parts;
 mod reference_observer;

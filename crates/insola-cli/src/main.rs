@@ -37,13 +37,15 @@ enum Command {
     /// Every event of the sky in an interval: rise, set, twilight, seasons, moon phases,
     /// eclipses.
     Events(commands::events::Args),
-    /// One row per day of the year: daylight, noon altitude, daily insolation.
+    /// One row per day of the year: daylight, noon altitude, daily insolation; `--png` draws
+    /// them.
     Year(commands::year::Args),
     /// List the invented worlds built into this command.
     Worlds(commands::list::Args),
     /// Seasonal climate per latitude band: temperatures, ice, seasons; or a sweep over tilt.
     Climate(commands::climate::Args),
-    /// Latitude × time-of-year heat map (PNG and/or CSV) of sunlight, daylight or temperature.
+    /// Latitude × time-of-year heat map (PNG or SVG, and/or CSV) of sunlight, daylight or
+    /// temperature; with `--land FILE` a latitude × longitude map of the climate over the land.
     Map(commands::map::Args),
     /// Leap rules, lunar and lunisolar schemes that fit the world; write one to the file.
     Calendar(commands::calendar::Args),

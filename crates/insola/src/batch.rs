@@ -10,7 +10,6 @@
 //! queries ([`Planet::star_position_at`]) to about 1e-15.
 
 use glam::DVec3;
-use rayon::prelude::*;
 
 use crate::planet::Planet;
 use crate::sky::{Place, StarInstant};
@@ -138,7 +137,7 @@ fn fill_chunk<T>(columns: Columns<'_>, out: &mut [T], f: &impl Fn([f64; 4]) -> T
     }
 }
 
-/// Writes `f(place)` for every place into `out`, in chunks over rayon's pool (serially below
+/// Writes `f(place)` for every place into `out`, in chunks over the thread pool (serially below
 /// [`SERIAL_BELOW`] places). Each element depends only on its own place, so the result does not
 /// depend on the number of threads.
 fn fill_par<T: Send>(batch: &PlaceBatch, out: &mut [T], f: impl Fn([f64; 4]) -> T + Sync) {
@@ -146,12 +145,9 @@ fn fill_par<T: Send>(batch: &PlaceBatch, out: &mut [T], f: impl Fn([f64; 4]) -> 
     if n < SERIAL_BELOW {
         return fill_chunk(batch.columns(0, n), &mut out[..n], &f);
     }
-    out[..n]
-        .par_chunks_mut(CHUNK)
-        .enumerate()
-        .for_each(|(c, chunk)| {
-            fill_chunk(batch.columns(c * CHUNK, chunk.len()), chunk, &f);
-        });
+    crate::parallel::for_each_chunk(&mut out[..n], CHUNK, |c, chunk| {
+        fill_chunk(batch.columns(c * CHUNK, chunk.len()), chunk, &f);
+    });
 }
 
 #[cfg(test)]

@@ -55,11 +55,10 @@ pub fn daily_mean_w_m2(s0_w_m2: f64, lat_rad: f64, decl_rad: f64, rho: f64) -> f
 /// Same formula as [`daily_mean_w_m2`], arranged for speed: the trigonometry of each latitude
 /// and each day is computed once (sines, cosines and tangents), the per-cell work is one `acos`,
 /// one square root and a few multiplications (`cos h0 = −tan φ tan δ` as a product, not a
-/// division), and days are spread over rayon's threads. Results equal the per-cell formula to
+/// division), and days are spread over the thread pool (feature `parallel`). Results equal the per-cell formula to
 /// rounding (≤ 1e-9 relative). The caller's buffer is written in place; the only allocation is
 /// one small table of the latitudes' trigonometry.
 pub fn daily_mean_grid_w_m2(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)], out: &mut [f64]) {
-    use rayon::prelude::*;
     let n = lats_rad.len();
     if n == 0 {
         return;
@@ -72,10 +71,11 @@ pub fn daily_mean_grid_w_m2(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)],
             (s, c, s / c)
         })
         .collect();
-    out.par_chunks_mut(n)
-        .zip(days.par_iter())
-        .with_min_len(8)
-        .for_each(|(row, &(decl, rho))| {
+    // Eight days per task: a row alone is too little work to hand to a thread.
+    let rows = (n * days.len()).min(out.len()) / n;
+    let out = &mut out[..rows * n];
+    crate::parallel::for_each_chunk(out, 8 * n, |c, rows| {
+        for (row, &(decl, rho)) in rows.chunks_mut(n).zip(&days[c * 8..]) {
             let (sd, cd) = decl.sin_cos();
             let td = sd / cd;
             let k = s0_w_m2 / (PI * rho * rho);
@@ -93,7 +93,8 @@ pub fn daily_mean_grid_w_m2(s0_w_m2: f64, lats_rad: &[f64], days: &[(f64, f64)],
                 };
                 *o = (k * (h0 * a + b * sin_h0)).max(0.0);
             }
-        });
+        }
+    });
 }
 
 /// Annual-mean insolation (time average over one orbit), W m⁻², integrating the daily mean over

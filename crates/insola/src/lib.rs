@@ -22,6 +22,7 @@ mod moon_orbit;
 pub mod moons;
 pub mod occlusion;
 pub mod orbit;
+mod parallel;
 mod place;
 mod planet;
 mod search;

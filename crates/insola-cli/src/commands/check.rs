@@ -13,6 +13,14 @@ pub struct Args {
     /// Print JSON instead of text.
     #[arg(long)]
     json: bool,
+    /// Compute the habitability warnings over this land file (a PNG mask, dark pixels land,
+    /// or a RON layout of shapes) instead of a planet-wide sea. Default: the land file the
+    /// world file names (`climate: (land: "…")`), if any.
+    #[arg(long, value_name = "FILE")]
+    land: Option<String>,
+    /// With --land: the map model's grid, COLUMNSxROWS.
+    #[arg(long, default_value = "128x64", value_name = "COLUMNSxROWS")]
+    grid: String,
 }
 
 /// Derived facts about a world.
@@ -69,6 +77,11 @@ pub struct Facts {
     pub companion: Option<CompanionFacts>,
     /// Things a designer may want to know.
     pub warnings: Vec<String>,
+    /// Habitability warnings from the map climate, each with what it is computed from (also
+    /// among `warnings`).
+    pub habitability: Vec<super::check_habitability::Habitability>,
+    /// The map climate the habitability warnings come from, in words.
+    pub habitability_from: String,
 }
 
 /// The second star in a few numbers.
@@ -155,12 +168,6 @@ pub fn facts(p: &Planet) -> Facts {
     let e = spec.orbit.eccentricity;
     let swing = ((1.0 + e) / (1.0 - e)).powi(2);
     let mut warnings = Vec::new();
-    if spec.spin.obliquity_deg > 80.0 && spec.spin.obliquity_deg < 100.0 {
-        warnings.push(format!(
-            "tilt {:.1}° is near 90°: seasons this extreme are commonly held too harsh for people (common practice, no source)",
-            spec.spin.obliquity_deg
-        ));
-    }
     if z.overlapping {
         warnings.push("tilt above 45°: the tropics lie poleward of the polar circles".into());
     }
@@ -277,6 +284,8 @@ pub fn facts(p: &Planet) -> Facts {
         season_wander: p.season_wander(),
         companion: companion_facts(p),
         warnings,
+        habitability: Vec::new(),
+        habitability_from: String::new(),
     }
 }
 
@@ -341,7 +350,18 @@ fn albedo_facts(p: &Planet) -> AlbedoFacts {
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let p = crate::worlds::load(&args.world)?;
-    let f = facts(&p);
+    let mut f = facts(&p);
+    let land = match &args.land {
+        Some(path) => Some(path.clone()),
+        None => crate::worlds::land_file(&args.world)?,
+    };
+    let (found, from) = super::check_habitability::findings(&p, land.as_deref(), &args.grid)?;
+    for h in &found {
+        f.warnings
+            .push(format!("habitability: {} (from {})", h.message, h.basis));
+    }
+    f.habitability = found;
+    f.habitability_from = from;
     if args.json {
         return super::output::print_json(&f);
     }
@@ -445,6 +465,12 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     for line in super::calendar::season_lines(&f.season_dates, &f.season_wander) {
         say!("  {line}");
+    }
+    if f.habitability.is_empty() {
+        say!(
+            "  habitability     no warnings from the {}",
+            f.habitability_from
+        );
     }
     for w in &f.warnings {
         say!("  warning: {w}");

@@ -25,8 +25,16 @@ pub struct Args {
     all_bands: bool,
     /// Instead of one climate, sweep the tilt: `FROM:TO:STEP` in degrees (e.g. `0:90:10`),
     /// printing the global mean and ice edges for each tilt.
-    #[arg(long, value_name = "FROM:TO:STEP")]
+    #[arg(long, value_name = "FROM:TO:STEP", conflicts_with = "land")]
     sweep_obliquity: Option<String>,
+    /// Also run the map climate over this land file (a PNG mask, dark pixels land, or a RON
+    /// layout of shapes) and print land and sea apart. Default: the land file the world file
+    /// names (`climate: (land: "…")`), if any.
+    #[arg(long, value_name = "FILE")]
+    land: Option<String>,
+    /// With --land: the map model's grid, COLUMNSxROWS.
+    #[arg(long, default_value = "128x64", value_name = "COLUMNSxROWS")]
+    grid: String,
 }
 
 /// One latitude band over the year.
@@ -85,6 +93,9 @@ pub struct ClimateReport {
     pub converged: bool,
     /// Largest change of any band over the last year, K.
     pub residual_k: f64,
+    /// With `--land`: land and sea apart from the map climate.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub land_sea: Option<super::climate_land::LandSeaReport>,
 }
 
 /// One tilt of an obliquity sweep.
@@ -159,6 +170,7 @@ pub fn report(p: &Planet, c: &ClimateCycle) -> ClimateReport {
         years_to_equilibrium: c.years_to_equilibrium(),
         converged: c.converged(),
         residual_k: c.residual_k(),
+        land_sea: None,
     }
 }
 
@@ -278,7 +290,14 @@ pub fn run(args: Args) -> Result<(), String> {
         return sweep(&args, &p, text);
     }
     let c = crate::climate_setup::cycle_of(&p)?;
-    let r = report(&p, &c);
+    let mut r = report(&p, &c);
+    let land = match &args.land {
+        Some(path) => Some(path.clone()),
+        None => crate::worlds::land_file(&args.world)?,
+    };
+    if let Some(path) = &land {
+        r.land_sea = Some(super::climate_land::report(&p, path, &args.grid)?);
+    }
     if args.json {
         return super::output::print_json(&r);
     }
@@ -344,6 +363,9 @@ pub fn run(args: Args) -> Result<(), String> {
     }
     if shown < n {
         say!("  ({shown} of {n} bands shown, nearest every 10°; --all-bands for all)");
+    }
+    if let Some(ls) = &r.land_sea {
+        super::climate_land::print(ls);
     }
     Ok(())
 }

@@ -1,9 +1,4 @@
-//! Drawing helpers for `insola map`: colour ramps and a small RGB canvas with lines and text.
-//!
-//! Text uses the public-domain 8×8 bitmap glyphs of the `font8x8` crate (no system fonts needed).
-
-use font8x8::UnicodeFonts;
-use image::{Rgb, RgbImage};
+//! Colour ramps and scales of the charts, and round tick values.
 
 /// An RGB colour, 8 bits per channel.
 pub type Colour = [u8; 3];
@@ -50,6 +45,25 @@ pub const WARMTH: Ramp = Ramp(&[
     (0.85, [150, 34, 40]),
     (1.0, [80, 12, 32]),
 ]);
+
+/// Growing season: bare tan through olive to deep green (0 = no growing days, 1 = all year).
+/// Lightness falls monotonically, so more growth reads darker.
+pub const GROWTH: Ramp = Ramp(&[
+    (0.0, [238, 230, 206]),
+    (0.3, [198, 204, 136]),
+    (0.6, [112, 160, 84]),
+    (0.85, [46, 108, 58]),
+    (1.0, [18, 62, 40]),
+]);
+
+/// Colours of the thermal zones, warmest first (as `ThermalZone::ALL`): warm sand, pale
+/// green-grey, steel blue, white-blue ice.
+pub const ZONE_COLOURS: [Colour; 4] = [
+    [230, 170, 92],
+    [176, 196, 150],
+    [104, 134, 176],
+    [228, 240, 250],
+];
 
 impl Ramp {
     /// The colour at `t` (clamped to 0–1; NaN gives the start colour).
@@ -126,151 +140,6 @@ impl Scale {
             Scale::Linear { lo, hi, .. } | Scale::Split { lo, hi, .. } => (lo, hi),
         }
     }
-}
-
-/// An RGB canvas with clipped drawing.
-pub struct Canvas {
-    /// The pixels.
-    pub img: RgbImage,
-}
-
-impl Canvas {
-    /// A canvas filled with `bg`.
-    pub fn new(w: u32, h: u32, bg: Colour) -> Self {
-        Canvas {
-            img: RgbImage::from_pixel(w, h, Rgb(bg)),
-        }
-    }
-
-    /// Sets one pixel (ignored outside the canvas).
-    pub fn put(&mut self, x: i64, y: i64, c: Colour) {
-        if x >= 0 && y >= 0 && (x as u32) < self.img.width() && (y as u32) < self.img.height() {
-            self.img.put_pixel(x as u32, y as u32, Rgb(c));
-        }
-    }
-
-    /// Fills a rectangle.
-    pub fn rect(&mut self, x: i64, y: i64, w: i64, h: i64, c: Colour) {
-        for yy in y..y + h {
-            for xx in x..x + w {
-                self.put(xx, yy, c);
-            }
-        }
-    }
-
-    /// Outlines a rectangle, 1 px.
-    pub fn frame(&mut self, x: i64, y: i64, w: i64, h: i64, c: Colour) {
-        self.hline(x, x + w - 1, y, c);
-        self.hline(x, x + w - 1, y + h - 1, c);
-        self.vline(x, y, y + h - 1, c);
-        self.vline(x + w - 1, y, y + h - 1, c);
-    }
-
-    /// Horizontal line from `x0` to `x1` inclusive.
-    pub fn hline(&mut self, x0: i64, x1: i64, y: i64, c: Colour) {
-        for x in x0..=x1 {
-            self.put(x, y, c);
-        }
-    }
-
-    /// Vertical line from `y0` to `y1` inclusive.
-    pub fn vline(&mut self, x: i64, y0: i64, y1: i64, c: Colour) {
-        for y in y0..=y1 {
-            self.put(x, y, c);
-        }
-    }
-
-    /// Horizontal dashed line alternating `a` and `b` dashes of `dash` px (visible on light and
-    /// dark backgrounds alike).
-    pub fn dashed_hline(&mut self, x0: i64, x1: i64, y: i64, dash: i64, a: Colour, b: Colour) {
-        for x in x0..=x1 {
-            let c = if ((x - x0) / dash) % 2 == 0 { a } else { b };
-            self.put(x, y, c);
-        }
-    }
-
-    /// Vertical dashed line, as [`Self::dashed_hline`].
-    pub fn dashed_vline(&mut self, x: i64, y0: i64, y1: i64, dash: i64, a: Colour, b: Colour) {
-        for y in y0..=y1 {
-            let c = if ((y - y0) / dash) % 2 == 0 { a } else { b };
-            self.put(x, y, c);
-        }
-    }
-
-    /// Draws text with its top-left corner at `(x, y)`, glyphs scaled by `scale`. A superscript
-    /// two (`²`) is drawn as the font's `2` at half size, raised.
-    pub fn text(&mut self, x: i64, y: i64, s: &str, scale: i64, c: Colour) {
-        let mut gx = x;
-        for ch in s.chars() {
-            if ch == '²' {
-                let g = glyph('2');
-                for row in 0..4 {
-                    for col in 0..4 {
-                        let hit = (0..2).any(|dy| g[2 * row + dy] & (0b11 << (2 * col)) != 0);
-                        if hit {
-                            self.rect(
-                                gx + col as i64 * scale,
-                                y + row as i64 * scale,
-                                scale,
-                                scale,
-                                c,
-                            );
-                        }
-                    }
-                }
-            } else {
-                let g = glyph(ch);
-                for (row, bits) in g.iter().enumerate() {
-                    for col in 0..8 {
-                        if bits & (1 << col) != 0 {
-                            self.rect(gx + col * scale, y + row as i64 * scale, scale, scale, c);
-                        }
-                    }
-                }
-            }
-            gx += advance(ch) * scale;
-        }
-    }
-
-    /// Draws text turned a quarter left (reading bottom to top), its baseline start at the
-    /// bottom-left `(x, y)`.
-    pub fn text_up(&mut self, x: i64, y: i64, s: &str, c: Colour) {
-        for (i, ch) in s.chars().enumerate() {
-            let g = glyph(ch);
-            let base = y - i as i64 * 8;
-            for (row, bits) in g.iter().enumerate() {
-                for col in 0..8i64 {
-                    if bits & (1 << col) != 0 {
-                        self.put(x + row as i64, base - col, c);
-                    }
-                }
-            }
-        }
-    }
-
-    /// Text on a filled box with a 2 px margin.
-    pub fn label(&mut self, x: i64, y: i64, s: &str, fg: Colour, bg: Colour) {
-        self.rect(x - 2, y - 2, text_width(s, 1) + 4, 12, bg);
-        self.text(x, y, s, 1, fg);
-    }
-}
-
-/// Width of a text in pixels.
-pub fn text_width(s: &str, scale: i64) -> i64 {
-    s.chars().map(advance).sum::<i64>() * scale
-}
-
-/// Horizontal advance of one character, px at scale 1.
-fn advance(ch: char) -> i64 {
-    if ch == '²' { 5 } else { 8 }
-}
-
-fn glyph(ch: char) -> [u8; 8] {
-    font8x8::BASIC_FONTS
-        .get(ch)
-        .or_else(|| font8x8::LATIN_FONTS.get(ch))
-        .or_else(|| font8x8::GREEK_FONTS.get(ch))
-        .unwrap_or([0; 8])
 }
 
 /// Tick values covering `lo..=hi` at a "nice" step (1, 2 or 5 × 10ⁿ), about `target` of them.

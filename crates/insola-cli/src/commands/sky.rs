@@ -1,9 +1,16 @@
-//! `insola sky WORLD --lat DEG [--lon DEG] (--day DAYS | --date DATE | --utc ISO8601)`.
+//! `insola sky WORLD --lat DEG [--lon DEG] (--day DAYS | --date DATE | --utc ISO8601)`, and
+//! with `--analemma --png FILE` the star at that clock time on every day of the following year
+//! (PNG or SVG by the file's extension; see [`analemma`]).
 
 use insola::calendar::CalendarDate;
+use insola::constants::SECONDS_PER_DAY;
 use insola::lighting::LightMode;
+use insola::star_track::TrackTimes;
 use insola::{Place, Planet};
 use serde::Serialize;
+
+use super::plot::analemma::Analemma;
+use super::plot::{lat_text, lon_text};
 
 /// Arguments of `insola sky`.
 #[derive(Debug, clap::Args)]
@@ -34,6 +41,13 @@ pub struct Args {
     /// Print JSON instead of text.
     #[arg(long)]
     json: bool,
+    /// Draw the analemma: the star at the same clock time every day for one year from the
+    /// given instant (needs --png).
+    #[arg(long, requires = "png")]
+    analemma: bool,
+    /// With --analemma: the picture file (`.png` or `.svg`, 960 × 640 px).
+    #[arg(long, value_name = "FILE", requires = "analemma")]
+    png: Option<String>,
 }
 
 /// The sky at one place and time.
@@ -222,6 +236,78 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
     }
 }
 
+/// The analemma from `t0_s`: one sample per mean solar day (per standard day on a locked
+/// world, where the sky barely moves) over one year, from the core's time series.
+pub fn analemma(p: &Planet, t0_s: f64, place: Place) -> Result<Analemma, String> {
+    let locked = p.spin().is_tidally_locked();
+    let step_s = if locked { SECONDS_PER_DAY } else { p.day_s() };
+    let count = (p.year_s() / step_s).round().clamp(2.0, 100_000.0) as usize;
+    let times = TrackTimes::Even {
+        start_s: t0_s,
+        step_s,
+        count,
+    };
+    let mut track = vec![p.star_position(t0_s, place); count];
+    p.star_track_into(place, times, &mut track)
+        .map_err(|e| e.to_string())?;
+    // Azimuths unwrapped around their circular mean, so a figure across north stays whole.
+    let (sy, sx) = track.iter().fold((0.0, 0.0), |(y, x), s| {
+        let (sa, ca) = s.azimuth_rad.sin_cos();
+        (y + sa, x + ca)
+    });
+    let mid = f64::atan2(sy, sx).to_degrees();
+    let samples: Vec<_> = track
+        .iter()
+        .map(|s| {
+            let az = s.azimuth_rad.to_degrees();
+            let rel = (az - mid + 180.0).rem_euclid(360.0) - 180.0;
+            (mid + rel, s.altitude_rad.to_degrees())
+        })
+        .collect();
+    let m = p.season_marks_after(t0_s);
+    let nearest = |t: f64| ((t - t0_s) / step_s).round().rem_euclid(count as f64) as usize;
+    let marks = [
+        (m.northward_equinox_s, "equinox (N spring)"),
+        (m.northern_solstice_s, "N solstice"),
+        (m.southward_equinox_s, "equinox (S spring)"),
+        (m.southern_solstice_s, "S solstice"),
+    ]
+    .map(|(t, name)| (samples[nearest(t).min(count - 1)], name))
+    .to_vec();
+    let lat = place.latitude_rad.to_degrees();
+    let lon = place.longitude_rad.to_degrees();
+    let lmt_h = p.local_mean_time_fraction(t0_s, place.longitude_rad) * p.day_s() / 3600.0;
+    let when = if locked {
+        format!(
+            "every standard day (24 h) for one year from day {:.2}",
+            p.solar_days_since_zero(t0_s)
+        )
+    } else {
+        format!(
+            "at local mean time {} every day for one year from day {:.2}",
+            super::output::hm(Some(lmt_h)),
+            p.solar_days_since_zero(t0_s)
+        )
+    };
+    Ok(Analemma {
+        title: format!("{}: the star {when}", p.spec().name),
+        subtitle: format!(
+            "seen from {}, {}; {}",
+            lat_text(lat),
+            lon_text(lon),
+            super::map::subtitle(p)
+        ),
+        note: super::map::footnote(
+            p,
+            &format!(
+                "{count} samples, dark to pale through the year; geometric altitude without refraction. Circled: the days nearest the equinoxes and solstices."
+            ),
+        ),
+        samples,
+        marks,
+    })
+}
+
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let (p, place) = args.at.load()?;
@@ -232,6 +318,10 @@ pub fn run(args: Args) -> Result<(), String> {
     } else {
         LightMode::Ground
     };
+    if let (true, Some(path)) = (args.analemma, &args.png) {
+        let chart = analemma(&p, t, place)?;
+        super::plot::save(&chart, path)?;
+    }
     let r = report(&p, t, place, mode);
     if args.json {
         return super::output::print_json(&r);
@@ -307,4 +397,34 @@ pub fn run(args: Args) -> Result<(), String> {
         );
     }
     Ok(())
+}
+
+#[cfg(test)]
+mod tests {
+    use super::*;
+
+    #[test]
+    fn earth_noon_analemma_spans_twice_the_obliquity() {
+        // Outside check: at local noon the star's altitude is 90° − φ + δ, and over a year δ
+        // runs between ±ε, so the noon analemma is 2ε tall and tops out at 90° − φ + ε
+        // (textbook spherical astronomy, e.g. Meeus, Astronomical Algorithms, ch. 13; from
+        // memory). ε is the Earth reference world's obliquity, 23.4392911° (84381.448″, the
+        // J2000 value of the IAU 1976 precession; from memory).
+        // Mean noon differs from true noon by the equation of time (under 17 min), which
+        // lowers the altitude by well under 0.3° at 40° N.
+        let p = crate::worlds::load("earth-reference").unwrap();
+        let eps = p.spec().spin.obliquity_deg;
+        let place = Place::from_degrees(40.0, 0.0).unwrap();
+        let frac0 = p.local_mean_time_fraction(0.0, 0.0);
+        let noon = (0.5 - frac0).rem_euclid(1.0) * p.day_s();
+        let a = analemma(&p, noon, place).unwrap();
+        let alt = |f: fn(f64, f64) -> f64, start: f64| a.samples.iter().map(|s| s.1).fold(start, f);
+        let (lo, hi) = (alt(f64::min, 90.0), alt(f64::max, -90.0));
+        assert!((hi - lo - 2.0 * eps).abs() < 0.3, "{lo} {hi}");
+        assert!((hi - (50.0 + eps)).abs() < 0.3, "{hi}");
+        // One sample a day for a year.
+        assert!((a.samples.len() as f64 - 365.25).abs() < 1.0);
+        // The figure stays around the south at noon in the north.
+        assert!(a.samples.iter().all(|s| (s.0 - 180.0).abs() < 10.0));
+    }
 }

@@ -1,8 +1,14 @@
-//! `insola year WORLD --lat DEG`: one row per local day of the first year.
+//! `insola year WORLD --lat DEG [--png FILE]`: one row per local day of the first year, and
+//! optionally a chart of them (PNG or SVG by the file's extension): day length, noon altitude and
+//! daily insolation, with the equinoxes and solstices marked.
 
 use insola::star_track::TrackTimes;
 use insola::{Place, Planet};
+use plotters::style::RGBColor;
 use serde::Serialize;
+
+use super::plot::year_chart::{Panel, YearChart};
+use super::plot::{lat_text, lon_text};
 
 /// Arguments of `insola year`.
 #[derive(Debug, clap::Args)]
@@ -16,6 +22,9 @@ pub struct Args {
     /// Print CSV instead of text.
     #[arg(long)]
     csv: bool,
+    /// Also draw the year as a chart to this file (`.png` or `.svg`, 960 × 720 px).
+    #[arg(long, value_name = "FILE")]
+    png: Option<String>,
 }
 
 /// One local day.
@@ -108,11 +117,78 @@ fn day_date(p: &Planet, start_s: f64, length_s: f64) -> String {
     p.date_at(start_s + 0.5 * length_s).text()
 }
 
+/// The chart of the rows at `place`.
+fn chart(p: &Planet, place: Place, rows: &[YearRow]) -> Result<YearChart, String> {
+    if p.spin().is_tidally_locked() {
+        return Err(format!(
+            "--png: {} is tidally locked: its one local day lasts the whole year, so there is no daily series to draw (`insola sky --analemma` shows its star's wobble)",
+            p.spec().name
+        ));
+    }
+    let first = rows.first().map_or(0, |r| r.day);
+    let day_of = |t_s: f64| p.local_day_count(t_s, place.longitude_rad) - first as f64;
+    let marks = p.season_marks_after(0.0);
+    let season_marks = vec![
+        (day_of(marks.northward_equinox_s), "equinox (N spring)"),
+        (day_of(marks.northern_solstice_s), "N solstice"),
+        (day_of(marks.southward_equinox_s), "equinox (S spring)"),
+        (day_of(marks.southern_solstice_s), "S solstice"),
+    ];
+    let series = |f: fn(&YearRow) -> f64| rows.iter().map(f).collect::<Vec<f64>>();
+    let day_h = p.spin().solar_day_s / 3600.0;
+    let lat = place.latitude_rad.to_degrees();
+    let lon = place.longitude_rad.to_degrees();
+    Ok(YearChart {
+        title: format!(
+            "{}: the year at {}, {}",
+            p.spec().name,
+            lat_text(lat),
+            lon_text(lon)
+        ),
+        subtitle: super::map::subtitle(p),
+        note: super::map::footnote(
+            p,
+            "Daylight: star's centre above the standard rise altitude. Insolation: top of the atmosphere, mean over the local day.",
+        ),
+        x_desc: format!(
+            "local days since the first day of the year (day {first}); {:.1} days of {day_h:.1} h",
+            rows.len()
+        ),
+        days: rows.iter().map(|r| (r.day - first) as f64 + 0.5).collect(),
+        x_max: rows.len() as f64,
+        panels: vec![
+            Panel {
+                name: "daylight, hours".into(),
+                values: series(|r| r.daylight_h),
+                colour: RGBColor(196, 128, 24),
+                range: Some((0.0, day_h)),
+            },
+            Panel {
+                name: "noon altitude, degrees".into(),
+                values: series(|r| r.noon_altitude_deg),
+                colour: RGBColor(52, 96, 168),
+                range: None,
+            },
+            Panel {
+                name: "daily insolation, W/m²".into(),
+                values: series(|r| r.insolation_w_m2),
+                colour: RGBColor(176, 52, 60),
+                range: None,
+            },
+        ],
+        season_marks,
+    })
+}
+
 /// Runs the command.
 pub fn run(args: Args) -> Result<(), String> {
     let (p, place) = args.at.load()?;
     let lat = args.at.lat;
     let rows = rows(&p, place);
+    if let Some(path) = &args.png {
+        let chart = chart(&p, place, &rows)?;
+        super::plot::save(&chart, path)?;
+    }
     if args.json {
         return super::output::print_json(&rows);
     }

@@ -11,8 +11,6 @@
 
 use std::f64::consts::PI;
 
-use rayon::prelude::*;
-
 /// Steps per parallel work item (whole rows; small tables stay on one thread).
 const ROWS_PER_TASK: usize = 16;
 
@@ -34,24 +32,22 @@ pub(crate) fn band_table(
         return (w_m2, vec![]);
     }
     let task = ROWS_PER_TASK * n;
-    w_m2.par_chunks_mut(task)
-        .zip(m1.par_chunks_mut(task))
-        .zip(m2.par_chunks_mut(task))
-        .zip(days.par_chunks(ROWS_PER_TASK))
-        .for_each(|(((q, m1), m2), days)| {
-            for (r, &(decl, rho)) in days.iter().enumerate() {
-                let row = r * n..(r + 1) * n;
-                fill_row(
-                    s0_w_m2,
-                    &trig,
-                    decl,
-                    rho,
-                    &mut q[row.clone()],
-                    &mut m1[row.clone()],
-                    &mut m2[row],
-                );
-            }
-        });
+    crate::parallel::for_each_chunk3(&mut w_m2, &mut m1, &mut m2, task, |c, q, m1, m2| {
+        let first = c * ROWS_PER_TASK;
+        let days = &days[first..(first + ROWS_PER_TASK).min(days.len())];
+        for (r, &(decl, rho)) in days.iter().enumerate() {
+            let row = r * n..(r + 1) * n;
+            fill_row(
+                s0_w_m2,
+                &trig,
+                decl,
+                rho,
+                &mut q[row.clone()],
+                &mut m1[row.clone()],
+                &mut m2[row],
+            );
+        }
+    });
     let mut mean_cos = vec![0.0; n];
     for (j, mu) in mean_cos.iter_mut().enumerate() {
         let (mut num, mut den) = (0.0, 0.0);

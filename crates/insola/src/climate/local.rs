@@ -20,8 +20,6 @@
 
 use std::f64::consts::{FRAC_PI_2, PI, TAU};
 
-use rayon::prelude::*;
-
 use super::cycle::ClimateCycle;
 use super::forcing::periodic_index;
 use crate::error::{QueryError, check_arg};
@@ -183,9 +181,7 @@ impl ClimateCycle {
             }
             None => (0.0, 0.0),
         };
-        let omega = TAU / solar_day_s;
-        let kappa = self.spec.diurnal_damping_w_m2_per_k
-            / (omega * self.spec.surface_heat_capacity_j_m2_per_k);
+        let kappa = self.spec.diurnal_kappa(solar_day_s);
         let response = DiurnalResponse::new(decl_rad, self.spec.diurnal_damping_w_m2_per_k, kappa);
         Ok(ClimateInstant {
             cycle: self,
@@ -320,16 +316,14 @@ impl ClimateInstant<'_> {
                 });
             }
         }
-        out.par_chunks_mut(BATCH_CHUNK)
-            .enumerate()
-            .try_for_each(|(c, chunk)| {
-                let start = c * BATCH_CHUNK;
-                for (i, o) in chunk.iter_mut().enumerate() {
-                    let p = start + i;
-                    *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
-                }
-                Ok(())
-            })
+        crate::parallel::try_for_each_chunk(out, BATCH_CHUNK, |c, chunk| {
+            let start = c * BATCH_CHUNK;
+            for (i, o) in chunk.iter_mut().enumerate() {
+                let p = start + i;
+                *o = self.temperature_c(lats_rad[p], hour_angles_rad[p], elevations_m[p])?;
+            }
+            Ok(())
+        })
     }
 }
 

@@ -100,6 +100,30 @@ impl PlaceTable {
         })
     }
 
+    /// A table from a function of latitude and east longitude, radians, °C, with the season
+    /// of each row (rows from the south pole to the north pole every 2°, the snapshot's rows;
+    /// columns from −180° to 180° of longitude at the snapshot's hour-angle spacing). For
+    /// climates whose temperature is not a function of latitude and hour angle alone, such as
+    /// the map model's ([`crate::map_climate::MapClimate::place_table`]).
+    pub fn from_fn(
+        temperature_c: impl Fn(f64, f64) -> f32,
+        seasons: [Season; SNAPSHOT_LATITUDES],
+    ) -> PlaceTable {
+        let mut rows = Box::new([[0f32; COLUMNS]; SNAPSHOT_LATITUDES]);
+        for (i, row) in rows.iter_mut().enumerate() {
+            let lat = ClimateSnapshot::row_latitude_rad(i);
+            for (j, cell) in row.iter_mut().enumerate() {
+                *cell = temperature_c(lat, Self::column_longitude_rad(j));
+            }
+        }
+        PlaceTable { rows, seasons }
+    }
+
+    /// East longitude of table column `j`, radians (−π for the first, π for the last).
+    pub fn column_longitude_rad(j: usize) -> f64 {
+        -PI + TAU * j as f64 / INTERVALS as f64
+    }
+
     /// Temperature, °C, and season at `cell`.
     #[inline(always)]
     pub fn at(&self, cell: &PlaceCell) -> (f32, Season) {

@@ -90,7 +90,7 @@ impl ClimateSnapshot {
     }
 
     /// The season of each row, unless empty.
-    pub(crate) fn seasons(&self) -> Option<&[Season; SNAPSHOT_LATITUDES]> {
+    pub fn seasons(&self) -> Option<&[Season; SNAPSHOT_LATITUDES]> {
         self.data.as_ref().map(|d| &d.seasons)
     }
 

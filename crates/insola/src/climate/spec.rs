@@ -161,6 +161,16 @@ impl ClimateSpec {
         }
     }
 
+    /// The day-night layer's dimensionless relaxation rate `κ = λ / (ω C)` for a mean solar day
+    /// of `solar_day_s` seconds: `λ` the diurnal damping (W m⁻² K⁻¹), `C` the thin surface
+    /// layer's heat capacity (J m⁻² K⁻¹), `ω = 2π / solar_day_s` the rotation rate (rad s⁻¹).
+    /// Large κ: the surface follows the star through the day; small κ: it barely swings. The
+    /// one definition the zonal model's local temperatures and the map model's share.
+    pub fn diurnal_kappa(&self, solar_day_s: f64) -> f64 {
+        let omega = std::f64::consts::TAU / solar_day_s;
+        self.diurnal_damping_w_m2_per_k / (omega * self.surface_heat_capacity_j_m2_per_k)
+    }
+
     /// Column heat capacity of a band, J m⁻² K⁻¹: ocean mixed layer and land by area fraction.
     pub fn heat_capacity_j_m2_per_k(&self) -> f64 {
         let ocean = WATER_DENSITY_KG_M3 * WATER_SPECIFIC_HEAT_J_KG_K * self.mixed_layer_depth_m;
@@ -287,6 +297,19 @@ struct ClimateSection {
     lapse_rate_k_per_km: f64,
     max_years: u32,
     tolerance_k: f64,
+    /// A land file (PNG mask or RON layout) for tools that map the climate, relative to the
+    /// world file: the `insola` CLI's `map`, `climate` and `check` take it as their `--land`.
+    /// Not a model parameter: [`ClimateSpec`] leaves it out, and a spec written back has none.
+    #[serde(
+        skip_serializing_if = "Option::is_none",
+        deserialize_with = "plain_text"
+    )]
+    land: Option<String>,
+}
+
+/// An optional text written as a plain string (`"a.png"`, not `Some("a.png")`).
+fn plain_text<'de, D: serde::Deserializer<'de>>(d: D) -> Result<Option<String>, D::Error> {
+    String::deserialize(d).map(Some)
 }
 
 /// An optional number written as a plain number (`0.3`, not `Some(0.3)`), whatever the RON
@@ -339,6 +362,7 @@ impl From<ClimateSpec> for ClimateSection {
             lapse_rate_k_per_km: s.lapse_rate_k_per_km,
             max_years: s.max_years,
             tolerance_k: s.tolerance_k,
+            land: None,
         }
     }
 }
@@ -383,6 +407,25 @@ impl TryFrom<ClimateSection> for ClimateSpec {
 #[cfg(test)]
 mod tests {
     use super::*;
+
+    #[test]
+    fn diurnal_kappa_is_damping_over_rotation_times_capacity() {
+        // κ = λ / (ω C) with the defaults λ = 30 W m⁻² K⁻¹, C = 6×10⁵ J m⁻² K⁻¹ and a 24 h day:
+        // ω = 2π / 86 400 s = 7.2722×10⁻⁵ rad/s, κ = 30 / 43.633 = 0.68755.
+        let k = ClimateSpec::default().diurnal_kappa(86_400.0);
+        assert!((k - 0.687_55).abs() < 1e-5, "{k}");
+        // Twice the day, twice κ: the layer has twice as long to follow the star.
+        let k2 = ClimateSpec::default().diurnal_kappa(172_800.0);
+        assert!((k2 - 2.0 * k).abs() < 1e-12);
+    }
+
+    #[test]
+    fn a_land_file_is_accepted_and_left_to_tools() {
+        // `land` names a file for the CLI; the model spec is the same with or without it.
+        let with: ClimateSpec = ron::from_str("(land: \"world.land.png\")").unwrap();
+        assert_eq!(with, ClimateSpec::default());
+        assert!(ron::from_str::<ClimateSpec>("(land: 3)").is_err());
+    }
 
     #[test]
     fn presets_are_valid() {

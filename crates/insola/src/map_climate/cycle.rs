@@ -1,7 +1,7 @@
 //! The periodic map climate: surface temperature per cell and step, statistics, and queries at
 //! any latitude and longitude.
 
-use std::f64::consts::{FRAC_PI_2, TAU};
+use std::f64::consts::FRAC_PI_2;
 
 use serde::{Deserialize, Serialize};
 
@@ -11,6 +11,13 @@ use super::model::MapEnergyBalanceModel;
 use super::resample::CellSurface;
 use crate::climate::{AnnualForcing, ClimateSpec, DiurnalResponse};
 use crate::error::{QueryError, check_arg};
+
+/// The day-night layer added to a fast rotator's daily-mean cycle at one time of year.
+pub(crate) struct DiurnalLayer {
+    response: DiurnalResponse,
+    /// The star's flux at the planet's distance then, W m⁻².
+    flux_w_m2: f64,
+}
 
 /// Statistics of one cell's surface temperature over the periodic year.
 #[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
@@ -296,24 +303,60 @@ impl MapClimate {
             f64::MAX,
             "greater than 0, finite",
         )?;
-        let (ForcingMode::DailyMean, Some(annual)) = (self.mode, &self.annual) else {
+        let Some(layer) = self.diurnal_layer(year_fraction, solar_day_s) else {
             return Ok(t);
         };
+        let (sp, cp) = lat_rad.sin_cos();
+        Ok(self.with_diurnal_layer(&layer, t, sp, cp, lat_rad, lon_rad, hour_angle_rad))
+    }
+
+    /// The day-night layer of a fast rotator at `year_fraction` for a mean solar day of
+    /// `solar_day_s` (the same for every place); `None` where the model resolves the day.
+    pub(crate) fn diurnal_layer(
+        &self,
+        year_fraction: f64,
+        solar_day_s: f64,
+    ) -> Option<DiurnalLayer> {
+        let (ForcingMode::DailyMean, Some(annual)) = (self.mode, &self.annual) else {
+            return None;
+        };
         let s = annual.sample_at(year_fraction);
-        let flux = annual.s0_w_m2 / (s.distance_factor * s.distance_factor);
         let spec = &self.spec;
-        let kappa = spec.diurnal_damping_w_m2_per_k
-            / (TAU / solar_day_s * spec.surface_heat_capacity_j_m2_per_k);
-        let response =
-            DiurnalResponse::new(s.declination_rad, spec.diurnal_damping_w_m2_per_k, kappa);
-        let iced = spec.ice_enabled && t < spec.ice_temperature_c;
+        let kappa = spec.diurnal_kappa(solar_day_s);
+        Some(DiurnalLayer {
+            response: DiurnalResponse::new(
+                s.declination_rad,
+                spec.diurnal_damping_w_m2_per_k,
+                kappa,
+            ),
+            flux_w_m2: annual.s0_w_m2 / (s.distance_factor * s.distance_factor),
+        })
+    }
+
+    /// `t_c` (the cycle's temperature at the place) plus the day-night layer's deviation at
+    /// local hour angle `hour_angle_rad`; `sp`, `cp` are the latitude's sine and cosine.
+    #[allow(clippy::too_many_arguments)]
+    pub(crate) fn with_diurnal_layer(
+        &self,
+        layer: &DiurnalLayer,
+        t_c: f64,
+        sp: f64,
+        cp: f64,
+        lat_rad: f64,
+        lon_rad: f64,
+        hour_angle_rad: f64,
+    ) -> f64 {
+        let spec = &self.spec;
+        let iced = spec.ice_enabled && t_c < spec.ice_temperature_c;
         let coalbedo = if iced {
             1.0 - spec.ice_albedo
         } else {
             1.0 - self.interpolate(|c| self.ice_free_albedo[c], lat_rad, lon_rad)
         };
-        let (sp, cp) = lat_rad.sin_cos();
-        Ok((t + response.deviation_k(sp, cp, hour_angle_rad, coalbedo * flux)).max(-273.15))
+        (t_c + layer
+            .response
+            .deviation_k(sp, cp, hour_angle_rad, coalbedo * layer.flux_w_m2))
+        .max(-273.15)
     }
 
     /// Land and sea statistics apart (area-weighted by each cell's land and sea fractions).

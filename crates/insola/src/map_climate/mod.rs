@@ -39,6 +39,7 @@ mod error;
 mod forcing;
 mod grid;
 mod model;
+mod observer_table;
 mod resample;
 mod shapes;
 mod solver;

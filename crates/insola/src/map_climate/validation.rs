@@ -425,9 +425,9 @@ fn verdance_zones_and_findings() {
     // A temperate demo world raises no habitability warning.
     let findings = map.habitability_findings(&ZoneOptions::default()).unwrap();
     assert!(findings.is_empty(), "{findings:?}");
-    // Asking for more than a year of mild days everywhere raises one, saying what it is from.
+    // Asking for a mild range no place keeps for 60 days raises one, saying what it is from.
     let strict = ZoneOptions {
-        mild_days_needed: 1e6,
+        mild_range_c: (0.0, 0.5),
         ..ZoneOptions::default()
     };
     let f = map.habitability_findings(&strict).unwrap();
@@ -435,7 +435,7 @@ fn verdance_zones_and_findings() {
         f[0],
         HabitabilityFinding::NoLastingMildSpell { .. }
     ));
-    assert!(!f[0].basis().is_empty() && f[0].message().contains("between 0 and 30"));
+    assert!(!f[0].basis().is_empty() && f[0].message().contains("between 0 and 0"));
     // The demo continent: the interior of Brevaine swings more than the sea at its latitude.
     let lat = 50f64.to_radians();
     let swing = |lon: f64| {
@@ -448,6 +448,41 @@ fn verdance_zones_and_findings() {
         swing(-100.0),
         swing(30.0)
     );
+}
+
+#[test]
+fn a_year_shorter_than_the_asked_spell_is_enough_when_mild_throughout() {
+    // The locked world's year is 18 standard days, shorter than the 60 mild days asked: the
+    // dusk ring, mild all year, must pass, and asking for more than the year asks for the year.
+    let p = locked_world(0.0);
+    let grid = MapGrid::new(32, 16).unwrap();
+    let sea = SurfaceMap::uniform(SurfaceKind::Sea);
+    let map = p
+        .equilibrate_map_climate(&sea, &grid, Resampling::Nearest)
+        .unwrap();
+    let zones = map.zones(&ZoneOptions::default()).unwrap();
+    let best = zones
+        .cells
+        .iter()
+        .map(|z| z.longest_mild_days)
+        .fold(0.0, f64::max);
+    assert!((best - 18.0).abs() < 1e-6, "{best}");
+    let f = map.habitability_findings(&ZoneOptions::default()).unwrap();
+    assert!(
+        !f.iter()
+            .any(|f| matches!(f, HabitabilityFinding::NoLastingMildSpell { .. })),
+        "{f:?}"
+    );
+    // A range nowhere met all year still raises it, asking for the whole year.
+    let narrow = ZoneOptions {
+        mild_range_c: (99.0, 100.0),
+        ..ZoneOptions::default()
+    };
+    let f = map.habitability_findings(&narrow).unwrap();
+    assert!(f.iter().any(|f| matches!(
+        f,
+        HabitabilityFinding::NoLastingMildSpell { needed_days, .. } if (needed_days - 18.0).abs() < 1e-9
+    )), "{f:?}");
 }
 
 #[test]

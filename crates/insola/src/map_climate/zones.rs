@@ -67,9 +67,11 @@ pub struct ZoneOptions {
     /// The mild range a place should stay in, °C. Default 0 to 30 (liquid water without heat
     /// stress; common practice, no source).
     pub mild_range_c: (f64, f64),
-    /// A mild stretch shorter than this everywhere is a finding, standard days. Default 60.
+    /// A mild stretch shorter than this everywhere is a finding, standard days (at most the
+    /// year: on a world whose year is shorter, a place mild all year passes). Default 60.
     pub mild_days_needed: f64,
-    /// A growing season shorter than this on all land is a finding, standard days. Default 30.
+    /// A growing season shorter than this on all land is a finding, standard days (at most the
+    /// year, as the mild stretch). Default 30.
     pub growing_days_needed: f64,
 }
 
@@ -313,11 +315,15 @@ impl MapClimate {
             .iter()
             .map(|z| z.longest_mild_days)
             .fold(0.0, f64::max);
-        if longest_mild < options.mild_days_needed {
+        // No stretch outlasts the year: on a short-year world the whole year is enough.
+        let year_days = self.year_s / STD_DAY_S;
+        let mild_needed = options.mild_days_needed.min(year_days);
+        let short = |longest: f64, needed: f64| longest < needed - 1e-9 * year_days;
+        if short(longest_mild, mild_needed) {
             out.push(HabitabilityFinding::NoLastingMildSpell {
                 longest_days: longest_mild,
                 range_c: options.mild_range_c,
-                needed_days: options.mild_days_needed,
+                needed_days: mild_needed,
             });
         }
         let longest_growing = zones
@@ -327,11 +333,12 @@ impl MapClimate {
             .filter(|(_, f)| **f >= 0.5)
             .map(|(z, _)| z.growing_days)
             .fold(0.0, f64::max);
-        if longest_growing < options.growing_days_needed {
+        let growing_needed = options.growing_days_needed.min(year_days);
+        if short(longest_growing, growing_needed) {
             out.push(HabitabilityFinding::ShortGrowingSeason {
                 longest_days: longest_growing,
                 threshold_c: options.growing_threshold_c,
-                needed_days: options.growing_days_needed,
+                needed_days: growing_needed,
             });
         }
         let ice = zones.everywhere.of(ThermalZone::LastingIce);

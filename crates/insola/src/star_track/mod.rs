@@ -16,8 +16,6 @@
 
 mod cursor;
 
-use rayon::prelude::*;
-
 use crate::error::QueryError;
 use crate::planet::Planet;
 use crate::sky::{Place, PreparedPlace, StarPosition};
@@ -153,9 +151,9 @@ impl Planet {
         if out.len() < 2 * CHUNK {
             self.positions_block(place, &times, 0, out);
         } else {
-            out.par_chunks_mut(CHUNK)
-                .enumerate()
-                .for_each(|(c, chunk)| self.positions_block(place, &times, c * CHUNK, chunk));
+            crate::parallel::for_each_chunk(out, CHUNK, |c, chunk| {
+                self.positions_block(place, &times, c * CHUNK, chunk)
+            });
         }
         Ok(())
     }
@@ -188,9 +186,9 @@ impl Planet {
         if out.len() < 2 * CHUNK {
             self.insolation_block(place, &times, 0, out);
         } else {
-            out.par_chunks_mut(CHUNK)
-                .enumerate()
-                .for_each(|(c, chunk)| self.insolation_block(place, &times, c * CHUNK, chunk));
+            crate::parallel::for_each_chunk(out, CHUNK, |c, chunk| {
+                self.insolation_block(place, &times, c * CHUNK, chunk)
+            });
         }
         Ok(())
     }
