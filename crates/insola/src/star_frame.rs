@@ -110,12 +110,16 @@ impl Planet {
         self.star_frame_at(self.star_instant(t_s))
     }
 
-    /// The star's frame at a precomputed instant.
+    /// The star's frame at a precomputed instant. The instant may be any star's
+    /// ([`Planet::star_instant_of`]): the frame then answers for that star, with its own rise
+    /// altitude and what can hide it.
     pub fn star_frame_at(&self, instant: StarInstant) -> StarFrame {
         StarFrame {
             meridian: Meridian::new(&instant),
             sense: self.spin().sense.sign(),
-            rise_altitude_rad: self.standard_rise_altitude_rad(),
+            rise_altitude_rad: self
+                .standard_rise_altitude_of_rad(instant.star)
+                .unwrap_or_else(|| self.standard_rise_altitude_rad()),
             sights: self.occluders_in_reach(&instant),
             ring: self.ring_sight(&instant),
             instant,

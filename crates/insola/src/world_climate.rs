@@ -5,8 +5,8 @@
 use serde::{Deserialize, Serialize};
 
 use crate::climate::{
-    AnnualForcing, ClimateCycle, ClimateError, ClimateSnapshot, ClimateSpec, ClimateZone, Season,
-    SeasonSample, equilibrate,
+    AnnualForcing, ClimateCycle, ClimateError, ClimateGrid, ClimateSnapshot, ClimateSpec,
+    ClimateZone, Season, SeasonSample, equilibrate,
 };
 use crate::error::QueryError;
 use crate::planet::Planet;
@@ -118,7 +118,8 @@ impl Planet {
     }
 
     /// The orbit's forcing as the climate model takes it: `steps` samples of declination and
-    /// distance evenly spaced in time over one year, starting at time zero.
+    /// distance evenly spaced in time over one year, starting at time zero. On a world of two
+    /// stars this is the primary's; [`Planet::star_forcings`] gives each star's.
     pub fn annual_forcing(&self, steps: usize) -> AnnualForcing {
         let n = steps.max(1);
         let samples = (0..n)
@@ -137,17 +138,48 @@ impl Planet {
         }
     }
 
+    /// The forcing of each shining star (primary first), as [`Planet::annual_forcing`] gives
+    /// the primary's: `steps` samples of that star's declination and distance factor (its
+    /// distance over the planet's semi-major axis), with its own flux at that distance.
+    pub fn star_forcings(&self, steps: usize) -> Vec<AnnualForcing> {
+        let n = steps.max(1);
+        self.shining_stars()
+            .map(|k| {
+                let samples = (0..n)
+                    .filter_map(|i| self.star_instant_of(k, i as f64 / n as f64 * self.year_s()))
+                    .map(|s| SeasonSample {
+                        declination_rad: s.declination_rad,
+                        distance_factor: s.distance_factor,
+                    })
+                    .collect();
+                AnnualForcing {
+                    s0_w_m2: self.flux_at_mean_distance_of_w_m2(k).unwrap_or(0.0),
+                    year_s: self.year_s(),
+                    samples,
+                }
+            })
+            .collect()
+    }
+
     /// Runs the climate model to its repeating year (milliseconds for the default 90 bands).
+    ///
+    /// With a shining companion the model is forced by the sum of both stars' insolation
+    /// ([`BandInsolation::from_star_forcings`] of [`Planet::star_forcings`]): at each step
+    /// each star's band mean with its own declination and distance. Mutual eclipses of the
+    /// stars, a few hours long, are left out of this forcing. The cycle keeps the primary's
+    /// forcing for its day-night queries.
     pub fn equilibrate_climate(&self) -> Result<ClimateCycle, ClimateError> {
         let spec = self.climate_spec();
         let forcing = self.annual_forcing(spec.steps_per_year);
-        if self.daily_mean_needs_quadrature() {
-            // The daily mean under a ring (see `crate::rings::daily_mean`).
-            let grid = crate::climate::ClimateGrid::new(spec.bands)?;
-            let table = self.ring_band_insolation(&forcing, &grid, spec.steps_per_year)?;
-            return crate::climate::equilibrate_with_insolation(&spec, &forcing, table);
+        let steps = spec.steps_per_year;
+        if !self.daily_mean_needs_quadrature() {
+            return equilibrate(&spec, &forcing);
         }
-        equilibrate(&spec, &forcing)
+        // Under a ring or two suns the table is built per star (each star's own declination,
+        // distance and flux), by quadrature under the ring, and summed.
+        let grid = ClimateGrid::new(spec.bands)?;
+        let table = self.star_band_tables(&forcing, &grid, steps)?;
+        crate::climate::equilibrate_with_insolation(&spec, &forcing, table)
     }
 
     /// Temperature and season at `place`, `elevation_m` above the reference level, at `t_s`,

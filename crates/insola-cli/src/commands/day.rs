@@ -72,6 +72,54 @@ pub struct DayReport {
     /// The ring's shadow over the place this day (left out when there is none).
     #[serde(skip_serializing_if = "Vec::is_empty")]
     pub ring_shadow: Vec<super::ring::ShadowSpan>,
+    /// Each star after the primary (the fields above are the primary's); empty on a one-star
+    /// world.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub other_stars: Vec<DayStarReport>,
+}
+
+/// Rise, transit and set of one star after the primary during the local day.
+#[derive(Debug, Serialize)]
+pub struct DayStarReport {
+    /// Index of the star (1: the companion).
+    pub star: usize,
+    /// First rise this day, local hours; null if none.
+    pub rise_h: Option<f64>,
+    /// First upper transit this day, local hours; null if none.
+    pub transit_h: Option<f64>,
+    /// First set this day, local hours; null if none.
+    pub set_h: Option<f64>,
+}
+
+/// Rise, transit and set of each star after the primary during the local day of `ev`.
+fn other_stars(p: &Planet, place: insola::Place, ev: &DayEvents) -> Vec<DayStarReport> {
+    use insola::sky_events::{EventFilter, EventGroup, SkyBody, SkyEventKind};
+    let filter = EventFilter::only([EventGroup::RiseSet, EventGroup::Transit]);
+    let events = p
+        .sky_events_between(
+            place,
+            ev.day_start_s,
+            ev.day_start_s + ev.day_length_s,
+            &filter,
+        )
+        .unwrap_or_default();
+    p.shining_stars()
+        .skip(1)
+        .map(|k| {
+            let first = |want: fn(SkyBody) -> SkyEventKind| {
+                events
+                    .iter()
+                    .find(|e| e.kind == want(SkyBody::Star(k)))
+                    .map(|e| ev.local_hours(e.at_s))
+            };
+            DayStarReport {
+                star: k,
+                rise_h: first(SkyEventKind::Rise),
+                transit_h: first(SkyEventKind::Transit),
+                set_h: first(SkyEventKind::Set),
+            }
+        })
+        .collect()
 }
 
 /// Builds the report from the core's events.
@@ -103,6 +151,7 @@ pub fn report(p: &Planet, day: i64, ev: &DayEvents) -> DayReport {
         astronomical_dawn_h,
         astronomical_dusk_h,
         ring_shadow: Vec::new(),
+        other_stars: Vec::new(),
     }
 }
 
@@ -154,6 +203,7 @@ pub fn run(args: Args) -> Result<(), String> {
     let ev = p.day_events(day, place);
     let mut r = report(&p, day, &ev);
     r.ring_shadow = super::ring::day_spans(&p, place, ev.day_start_s, ev.day_length_s);
+    r.other_stars = other_stars(&p, place, &ev);
     if args.json {
         return super::output::print_json(&r);
     }
@@ -174,6 +224,11 @@ pub fn run(args: Args) -> Result<(), String> {
             .as_ref()
             .map_or(String::new(), |w| format!(", weekday {w}"))
     );
+    if !r.other_stars.is_empty() {
+        say!(
+            "  primary (star 0); twilight below is the primary's, `insola events` gives the combined light's"
+        );
+    }
     match r.polar {
         Some(Polar::Day) => say!("  the star never sets (polar day)"),
         Some(Polar::Night) => say!("  the star never rises (polar night)"),
@@ -183,6 +238,15 @@ pub fn run(args: Args) -> Result<(), String> {
             hm(r.transit_h),
             hm(r.sunset_h)
         ),
+    }
+    for o in &r.other_stars {
+        say!(
+            "  star {}: rise {}   transit {}   set {}",
+            o.star,
+            hm(o.rise_h),
+            hm(o.transit_h),
+            hm(o.set_h)
+        );
     }
     if let Some(a) = r.transit_altitude_deg {
         say!("  transit altitude {a:.2}°");

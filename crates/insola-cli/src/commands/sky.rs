@@ -101,6 +101,31 @@ pub struct SkyReport {
     /// The ring in the sky and its shadow here (left out on worlds without a ring).
     #[serde(skip_serializing_if = "Option::is_none")]
     pub ring: Option<super::ring::RingSkyReport>,
+    /// Each star after the primary (the fields above are the primary's, except the twilight,
+    /// which is of the combined light); empty on a one-star world.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub other_stars: Vec<StarReport>,
+}
+
+/// One star after the primary in the sky report.
+#[derive(Debug, Serialize)]
+pub struct StarReport {
+    /// Index of the star (1: the companion).
+    pub star: usize,
+    /// Geometric altitude of its centre, degrees.
+    pub altitude_deg: f64,
+    /// Azimuth, degrees.
+    pub azimuth_deg: f64,
+    /// Distance, AU.
+    pub distance_au: f64,
+    /// Top-of-atmosphere insolation from it on a horizontal surface, W m⁻².
+    pub toa_insolation_w_m2: f64,
+    /// Direct-beam illuminance on a surface facing it, lux.
+    pub direct_illuminance_lux: f64,
+    /// Correlated colour temperature of its light, kelvin.
+    pub light_cct_k: f64,
+    /// Fraction of its disc hidden (by a moon or the other star).
+    pub eclipse_fraction: f64,
 }
 
 /// One moon in the sky report.
@@ -197,6 +222,22 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
             })
             .collect(),
         ring: super::ring::sky(p, t, place),
+        other_stars: l
+            .other_stars
+            .iter()
+            .map(|o| StarReport {
+                star: o.star,
+                altitude_deg: o.light.altitude_rad.to_degrees(),
+                azimuth_deg: o.light.azimuth_rad.to_degrees(),
+                distance_au: p
+                    .star_instant_of(o.star, t)
+                    .map_or(f64::NAN, |i| i.distance_au),
+                toa_insolation_w_m2: o.toa_insolation_w_m2,
+                direct_illuminance_lux: o.light.illuminance_lux,
+                light_cct_k: o.light.cct_k,
+                eclipse_fraction: o.eclipse_fraction,
+            })
+            .collect(),
     }
 }
 
@@ -330,6 +371,23 @@ pub fn run(args: Args) -> Result<(), String> {
     );
     if let Some(ring) = &r.ring {
         super::ring::print_sky(ring);
+    }
+    for o in &r.other_stars {
+        say!(
+            "  star {}    altitude {:8.3}°  azimuth {:8.3}°  distance {:.5} AU  direct {:.4e} lx  CCT {:.0} K  insolation {:.1} W/m²{}",
+            o.star,
+            o.altitude_deg,
+            o.azimuth_deg,
+            o.distance_au,
+            o.direct_illuminance_lux,
+            o.light_cct_k,
+            o.toa_insolation_w_m2,
+            if o.eclipse_fraction > 0.0 {
+                format!("  eclipsed {:.0} %", 100.0 * o.eclipse_fraction)
+            } else {
+                String::new()
+            }
+        );
     }
     for m in &r.moons {
         say!(

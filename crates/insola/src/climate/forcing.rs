@@ -153,6 +153,79 @@ impl BandInsolation {
         }
     }
 
+    /// The table of several stars shining on one planet: the sum of each star's
+    /// [`BandInsolation::from_forcing`] table ([`BandInsolation::summed`]). One forcing gives
+    /// exactly its own table.
+    pub fn from_star_forcings(
+        forcings: &[AnnualForcing],
+        grid: &ClimateGrid,
+        steps: usize,
+    ) -> Result<Self, SpecError> {
+        let tables = forcings
+            .iter()
+            .map(|f| Self::from_forcing(f, grid, steps))
+            .collect::<Result<Vec<_>, _>>()?;
+        Self::summed(tables)
+    }
+
+    /// The sum of tables on the same bands and steps (insolation from several stars adds),
+    /// with each band's mean cosine of the zenith angle the insolation-weighted mean of the
+    /// tables' (`Σ μ_k Q_k / Σ Q_k`, `Q_k` the band's yearly insolation in table `k`). One table
+    /// comes back unchanged. Errors: no table, or tables of different shapes.
+    pub fn summed(tables: Vec<BandInsolation>) -> Result<Self, SpecError> {
+        let mut tables = tables.into_iter();
+        let Some(mut table) = tables.next() else {
+            return Err(SpecError::inconsistent(
+                "forcing.samples",
+                "at least one star's forcing is needed",
+            ));
+        };
+        let rest: Vec<BandInsolation> = tables.collect();
+        if rest.is_empty() {
+            return Ok(table);
+        }
+        let mut weighted = vec![0.0; table.bands];
+        let mut totals = vec![0.0; table.bands];
+        let mut add_weights = |t: &BandInsolation| {
+            let q = t.mean_per_band();
+            let mu = t.mean_cos_zenith.clone().unwrap_or_default();
+            for j in 0..q.len().min(weighted.len()) {
+                weighted[j] += mu.get(j).copied().unwrap_or(0.0) * q[j];
+                totals[j] += q[j];
+            }
+        };
+        add_weights(&table);
+        for other in &rest {
+            if other.steps != table.steps || other.bands != table.bands {
+                return Err(SpecError::inconsistent(
+                    "forcing.samples",
+                    format!(
+                        "tables of {} × {} and {} × {} steps × bands cannot be summed",
+                        table.steps, table.bands, other.steps, other.bands
+                    ),
+                ));
+            }
+            add_weights(other);
+            for (q, o) in table.w_m2.iter_mut().zip(&other.w_m2) {
+                *q += o;
+            }
+        }
+        table.mean_cos_zenith = Some(
+            weighted
+                .iter()
+                .zip(&totals)
+                .map(|(w, q)| {
+                    if *q > 0.0 {
+                        (w / q).clamp(0.0, 1.0)
+                    } else {
+                        0.0
+                    }
+                })
+                .collect(),
+        );
+        Ok(table)
+    }
+
     /// A table from a function `q(x, year_fraction)` in W m⁻², `x = sin φ` at band centres —
     /// for idealised forcings such as the Legendre forms used in analytic checks. Non-finite or
     /// negative values are an error naming `forcing.insolation`.

@@ -131,17 +131,13 @@ impl MapForcing {
         let day_s = planet.day_s();
         if !locked && day_s < SLOW_DAY_STEPS * dt {
             if planet.daily_mean_needs_quadrature() {
-                // The daily mean under a ring (see `crate::rings::daily_mean`).
-                let daily = planet.ring_band_insolation(&annual, grid.rows(), steps)?;
-                return Ok(MapForcing {
-                    mode: ForcingMode::DailyMean,
-                    steps,
-                    year_s,
-                    daily: Some(daily),
-                    suns: Vec::new(),
-                    annual: Some(annual),
-                    ring: None,
-                });
+                // Under a ring (see `crate::rings::daily_mean`) or two suns (each star's table,
+                // summed): the day-night layer keeps the primary's path. Slow rotators and
+                // locked worlds are forced by the primary alone for now.
+                let daily = planet.star_band_tables(&annual, grid.rows(), steps)?;
+                let mut forcing = Self::daily_mean(&annual, grid, steps)?;
+                forcing.daily = Some(daily);
+                return Ok(forcing);
             }
             return Self::daily_mean(&annual, grid, steps);
         }

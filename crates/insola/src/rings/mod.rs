@@ -42,6 +42,7 @@ pub use daily_mean::RING_DAILY_MEAN_NODES;
 pub use shadow::{RING_SHADOW_THRESHOLD, RingShadow, RingSight, noon_shadow_latitude_rad};
 pub use sky::{RING_ARC_POINTS, RingArc, RingEdgePoint, RingFace, RingView};
 
+use crate::climate::BandInsolation;
 use crate::planet::Planet;
 use crate::world::RingSpec;
 
@@ -58,9 +59,32 @@ impl Planet {
     }
 
     /// `true` if the daily-mean insolation of this world cannot use the analytic Berger (1978)
-    /// formula and must be integrated over the hour angle instead: today when a ring dims the
-    /// star (other conditions, such as a second star, join here).
+    /// formula alone: when a ring dims the star (integrated over the hour angle) or a second
+    /// star shines (each star's table, summed). See [`Planet::star_band_tables`].
     pub fn daily_mean_needs_quadrature(&self) -> bool {
-        self.has_ring_shadow()
+        self.has_ring_shadow() || self.has_shining_companion()
+    }
+
+    /// The climate's daily-mean insolation table of every shining star, summed: per star its
+    /// own forcing (declination, distance and flux at each step; the primary's is `primary`),
+    /// by quadrature under the ring when there is one ([`Planet::ring_band_insolation`]), else
+    /// by the closed form ([`BandInsolation::from_forcing`]); the bands' mean zenith cosines are
+    /// weighted by each star's share ([`BandInsolation::summed`]).
+    pub fn star_band_tables(
+        &self,
+        primary: &crate::climate::AnnualForcing,
+        grid: &crate::climate::ClimateGrid,
+        steps: usize,
+    ) -> Result<BandInsolation, crate::error::SpecError> {
+        let forcings = if self.has_shining_companion() {
+            self.star_forcings(steps)
+        } else {
+            vec![primary.clone()]
+        };
+        let tables = forcings
+            .iter()
+            .map(|f| self.ring_band_insolation(f, grid, steps))
+            .collect::<Result<Vec<_>, _>>()?;
+        BandInsolation::summed(tables)
     }
 }

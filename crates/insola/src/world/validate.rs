@@ -35,6 +35,9 @@ impl WorldSpec {
         if let Some(ring) = &self.ring {
             ring.validate("ring", self.body.unwrap_or_default().radius_km)?;
         }
+        if let Some(companion) = &self.companion {
+            companion.validate("companion", self)?;
+        }
         if let Some(calendar) = &self.calendar {
             calendar.validate("calendar")?;
             if let Some(m) = &calendar.moon_months
@@ -78,6 +81,9 @@ impl StarSpec {
                     "missing: give `luminosity_l_sun` or `flux_at_mean_distance_w_m2`",
                 ));
             }
+        }
+        if let Some(m) = self.mass_m_sun {
+            check_range_open_min("star.mass_m_sun", m, 0.0, 1.0e3)?;
         }
         Ok(())
     }
