@@ -739,3 +739,67 @@ fn help_and_reference_world_output_carry_the_caution() {
     let text = String::from_utf8_lossy(&out.stdout);
     assert!(text.contains("not for navigation"), "{text}");
 }
+
+#[test]
+fn two_star_worlds_show_each_star() {
+    // Ambrivane (invented, two suns): `check` names the pair, `sky` and `day` give the second
+    // star a line, `events` names the primary and the companion and finds their eclipses.
+    let v = json(&["check", "ambrivane", "--json"]);
+    assert_eq!(v["companion"]["arrangement"], "circumbinary");
+    assert!(v["companion"]["stability_limit_au"].as_f64().unwrap() < 1.19);
+    let v = json(&["sky", "ambrivane", "--lat", "20", "--day", "10.4", "--json"]);
+    assert_eq!(v["other_stars"][0]["star"], 1);
+    let text =
+        String::from_utf8_lossy(&insola(&["day", "ambrivane", "--lat", "20", "--day", "3"]).stdout)
+            .to_string();
+    assert!(text.contains("star 1: rise"), "{text}");
+    let v = json(&[
+        "events",
+        "ambrivane",
+        "--lat",
+        "10",
+        "--from",
+        "0",
+        "--to",
+        "40",
+        "--kinds",
+        "eclipse,rise-set",
+        "--json",
+    ]);
+    let texts: Vec<&str> = v["events"]
+        .as_array()
+        .unwrap()
+        .iter()
+        .map(|e| e["text"].as_str().unwrap())
+        .collect();
+    assert!(texts.iter().any(|t| t.starts_with("companion rises")));
+    assert!(
+        texts
+            .iter()
+            .any(|t| t.starts_with("eclipse of the primary by the companion"))
+    );
+    assert!(
+        texts
+            .iter()
+            .any(|t| t.starts_with("eclipse of the companion by the primary"))
+    );
+    let csv =
+        String::from_utf8_lossy(&insola(&["year", "ambrivane", "--lat", "30", "--csv"]).stdout)
+            .to_string();
+    assert!(
+        csv.lines()
+            .next()
+            .unwrap()
+            .ends_with(",companion_insolation_w_m2")
+    );
+    // The real two-star system is a marked reference: its output carries the caution.
+    for cmd in ["sky", "day", "year"] {
+        let day = if cmd == "sky" { "10.5" } else { "3" };
+        let mut args = vec![cmd, "kepler-16-reference", "--lat", "10"];
+        if cmd != "year" {
+            args.extend(["--day", day]);
+        }
+        let text = String::from_utf8_lossy(&insola(&args).stdout).to_string();
+        assert!(text.contains("not for navigation"), "{cmd}: {text}");
+    }
+}

@@ -27,7 +27,8 @@ impl BuiltInWorld {
     }
 }
 
-/// Every shipped world: the three invented demo worlds, then the Earth validation reference.
+/// Every shipped world: the invented demo worlds (Ambrivane has two suns), then the
+/// validation references (Earth; Kepler-16, a real planet of two stars).
 pub const BUILT_IN_WORLDS: &[BuiltInWorld] = &[
     BuiltInWorld {
         name: "verdance",
@@ -45,8 +46,18 @@ pub const BUILT_IN_WORLDS: &[BuiltInWorld] = &[
         is_reference: false,
     },
     BuiltInWorld {
+        name: "ambrivane",
+        ron: include_str!("../worlds/ambrivane.world.ron"),
+        is_reference: false,
+    },
+    BuiltInWorld {
         name: "earth-reference",
         ron: include_str!("../worlds/reference/earth.world.ron"),
+        is_reference: true,
+    },
+    BuiltInWorld {
+        name: "kepler-16-reference",
+        ron: include_str!("../worlds/reference/kepler-16.world.ron"),
         is_reference: true,
     },
 ];
@@ -81,9 +92,10 @@ mod tests {
         }
         assert_eq!(
             invented_world_names().collect::<Vec<_>>(),
-            ["verdance", "calvenne", "oromar"]
+            ["verdance", "calvenne", "oromar", "ambrivane"]
         );
         assert!(built_in_world("earth-reference").unwrap().is_reference);
+        assert!(built_in_world("kepler-16-reference").unwrap().is_reference);
         assert!(built_in_world("nowhere").is_none());
     }
 }

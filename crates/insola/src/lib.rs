@@ -2,6 +2,7 @@
 
 pub mod angle;
 pub mod batch;
+pub mod binary_orbit;
 #[cfg(feature = "built-in-worlds")]
 pub mod built_in_worlds;
 pub mod calendar;
@@ -30,6 +31,7 @@ mod sky;
 pub mod sky_events;
 pub mod spin;
 pub mod star_frame;
+pub mod star_pair;
 pub mod star_track;
 pub mod world;
 mod world_climate;

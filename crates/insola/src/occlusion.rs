@@ -5,13 +5,16 @@
 //!
 //! Insola's sky has two roles:
 //!
-//! - **shining bodies** — the world's stars. Today a world has one, the star of
-//!   [`crate::WorldSpec::star`]; its light, colour and position come from
-//!   [`Planet::star_instant`] and [`Planet::star_position_at`].
+//! - **shining bodies** — the world's stars: the star of [`crate::WorldSpec::star`] (index 0)
+//!   and, with a [`crate::WorldSpec::companion`], a second one (index 1); their light, colour
+//!   and position come from [`Planet::star_instant_of`] and [`Planet::star_position_at`]. A
+//!   [`StarInstant`] says which star it describes ([`StarInstant::star`]), and every function
+//!   here answers for that star.
 //! - **occluders** — anything that can stand between a place and a star's disc. Today these
-//!   are the moons ([`Occluder::Moon`]). A ring (a band of sky with an optical depth) and a
-//!   second star passing in front of the first are new [`Occluder`] variants with their own
-//!   cover function in this file, not changes in each consumer.
+//!   are the moons ([`Occluder::Moon`], in front of either star) and the stars themselves
+//!   ([`Occluder::Star`]: the nearer star of a pair passing in front of the farther one, as
+//!   seen from the place). A ring (a band of sky with an optical depth) is a new [`Occluder`]
+//!   variant with its own cover function in this file, not a change in each consumer.
 //!
 //! A new occluder also says how far it is from the star ([`Planet::occluder_clearance_rad`],
 //! negative while it covers it) and how fast that can change ([`Planet::occluder_motion`]), so
@@ -47,12 +50,18 @@ use crate::sky::{Place, StarInstant};
 pub enum Occluder {
     /// Moon `index`, in world-file order.
     Moon(usize),
+    /// Star `index` (0 the primary, 1 the companion), while it is nearer than the star it
+    /// hides.
+    Star(usize),
 }
 
 impl std::fmt::Display for Occluder {
     fn fmt(&self, f: &mut std::fmt::Formatter<'_>) -> std::fmt::Result {
         match self {
             Occluder::Moon(i) => write!(f, "moon {i}"),
+            // As `SkyBody` names stars: `star` for the primary, `star 1` for the companion.
+            Occluder::Star(0) => f.write_str("star"),
+            Occluder::Star(i) => write!(f, "star {i}"),
         }
     }
 }
@@ -172,21 +181,60 @@ pub(crate) fn occlusion_among(
 /// Safety factor on the rate bounds of [`OccluderMotion`] (common practice, no source).
 const OCCLUDER_RATE_MARGIN: f64 = 1.25;
 
+/// Geometry of one star in front of (or behind) another, seen from a place.
+struct StarOnStar {
+    /// Angle between the two centres, radians.
+    elongation_rad: f64,
+    /// Angular radius of the occluding star's disc seen from the place, radians.
+    occluder_radius_rad: f64,
+    /// `true` while the occluding star is the nearer.
+    nearer: bool,
+}
+
+/// Bounds on the stars' motion against the planet ([`Planet::star_motion_bounds`]).
+struct StarBounds {
+    fastest_m_s: f64,
+    closest_m: f64,
+    farthest_m: f64,
+    largest_radius_m: f64,
+    smallest_radius_m: f64,
+}
+
 /// How fast an occluder can move against the star (defined with the search primitives, which
 /// are the only thing that needs it, so that moons can give theirs without importing this
 /// module).
 pub use crate::search::OccluderMotion;
 
 impl Planet {
-    /// Every occluder of this world, in a fixed order (moons in world-file order).
+    /// Every occluder of this world, in a fixed order (moons in world-file order, then the
+    /// stars that can pass in front of another: both of a circumbinary pair, the primary of a
+    /// wide one, which is always the nearer).
     pub fn occluders(&self) -> impl Iterator<Item = Occluder> + '_ {
-        (0..self.moon_orbits().len()).map(Occluder::Moon)
+        let stars: &[usize] = match self.companion().map(|c| c.pair.arrangement) {
+            None => &[],
+            Some(crate::world::CompanionArrangement::Circumbinary) => &[0, 1],
+            Some(crate::world::CompanionArrangement::Wide) => &[0],
+        };
+        (0..self.moon_orbits().len())
+            .map(Occluder::Moon)
+            .chain(stars.iter().map(|&k| Occluder::Star(k)))
     }
 
-    /// `true` if the world has anything that can ever hide its star (lets batch paths skip
-    /// the occlusion work on worlds without moons).
+    /// `true` if `occluder` can ever hide star `star` (a star never hides itself, and the
+    /// companion of a wide pair is always farther than the primary).
+    pub fn occluder_can_hide(&self, occluder: Occluder, star: usize) -> bool {
+        match occluder {
+            Occluder::Moon(i) => i < self.moon_orbits().len() && star < self.star_count(),
+            Occluder::Star(k) => {
+                k != star && star < self.star_count() && self.occluders().any(|o| o == occluder)
+            }
+        }
+    }
+
+    /// `true` if the world has anything that can ever hide a star (lets batch paths skip
+    /// the occlusion work on worlds without moons or a second star).
     pub fn has_occluders(&self) -> bool {
-        !self.moon_orbits().is_empty()
+        !self.moon_orbits().is_empty() || self.companion().is_some()
     }
 
     /// `occluder` and the star at a precomputed instant, for many places (`None` for an
@@ -207,14 +255,40 @@ impl Planet {
                     let e = crate::frames::equatorial_from_ecliptic(v, tilt);
                     [c * e.x + s * e.y, c * e.y - s * e.x, e.z]
                 };
-                let (sl, cl) = instant.ecliptic_longitude_rad.sin_cos();
-                let star =
-                    DVec3::new(cl, sl, 0.0) * (instant.distance_factor * self.semi_major_axis_m());
+                let star = crate::star_pair::ecliptic_unit(instant)
+                    * (instant.distance_factor * self.semi_major_axis_m());
                 Some(OccluderSight {
                     occluder,
                     occluder_m: rotating(orbit.position_at(instant.t_s)),
                     star_m: rotating(star),
                     occluder_radius_m: orbit.radius_m,
+                    star_radius_rad: instant.angular_radius_rad,
+                    planet_radius_m: self.body().radius_km * 1000.0,
+                })
+            }
+            Occluder::Star(k) => {
+                if !self.occluder_can_hide(occluder, instant.star) {
+                    return None;
+                }
+                let occluder_v = self.star_vector_m(k, instant.t_s)?;
+                let star = crate::star_pair::ecliptic_unit(instant)
+                    * (instant.distance_factor * self.semi_major_axis_m());
+                // The nearer star hides the farther one; the order does not change while
+                // they overlap (it flips only far from conjunction).
+                if occluder_v.length() >= star.length() {
+                    return None;
+                }
+                let tilt = self.spin().tilt_rad;
+                let (s, c) = instant.sidereal_angle_rad.sin_cos();
+                let rotating = |v: DVec3| {
+                    let e = crate::frames::equatorial_from_ecliptic(v, tilt);
+                    [c * e.x + s * e.y, c * e.y - s * e.x, e.z]
+                };
+                Some(OccluderSight {
+                    occluder,
+                    occluder_m: rotating(occluder_v),
+                    star_m: rotating(star),
+                    occluder_radius_m: self.star_radius_of_m(k)?,
                     star_radius_rad: instant.angular_radius_rad,
                     planet_radius_m: self.body().radius_km * 1000.0,
                 })
@@ -239,6 +313,13 @@ impl Planet {
             Occluder::Moon(i) => self
                 .moon_view(instant, i, place)
                 .map_or(0.0, |v| v.star_covered_fraction),
+            Occluder::Star(k) => self.star_on_star(k, instant, place).map_or(0.0, |v| {
+                crate::light::covered_fraction(
+                    instant.angular_radius_rad,
+                    v.occluder_radius_rad,
+                    v.elongation_rad,
+                )
+            }),
         }
     }
 
@@ -258,52 +339,177 @@ impl Planet {
                 .map_or(f64::INFINITY, |v| {
                     v.elongation_rad - v.angular_radius_rad - instant.angular_radius_rad
                 }),
+            Occluder::Star(k) => self
+                .star_on_star(k, instant, place)
+                .map_or(f64::INFINITY, |v| {
+                    let gap = v.elongation_rad - v.occluder_radius_rad - instant.angular_radius_rad;
+                    if v.nearer {
+                        gap
+                    } else {
+                        // Behind: never an eclipse. Lifted by twice the discs so it stays positive
+                        // through the conjunction; the order flips only far from conjunction, where
+                        // the gap is large, so the lift never hides a contact.
+                        gap + 2.0 * (v.occluder_radius_rad + instant.angular_radius_rad)
+                    }
+                }),
         }
     }
 
-    /// Bounds on how fast `occluder`'s clearance can change, from any place (`None` for an
-    /// occluder this world does not have).
+    /// Star `k` against the star of `instant`, seen from `place` (`None` when star `k` cannot
+    /// hide it).
+    fn star_on_star(&self, k: usize, instant: &StarInstant, place: Place) -> Option<StarOnStar> {
+        if !self.occluder_can_hide(Occluder::Star(k), instant.star) {
+            return None;
+        }
+        let obs = self.observer_offset(instant, place);
+        let target = crate::star_pair::ecliptic_unit(instant)
+            * (instant.distance_factor * self.semi_major_axis_m())
+            - obs;
+        let occluder = self.star_vector_m(k, instant.t_s)? - obs;
+        Some(StarOnStar {
+            elongation_rad: crate::moons::angle_between(target, occluder),
+            occluder_radius_rad: crate::light::angular_radius(
+                self.star_radius_of_m(k)?,
+                occluder.length(),
+            ),
+            nearer: occluder.length() < target.length(),
+        })
+    }
+
+    /// Bounds on how fast the stars can move against the planet: fastest speed relative to
+    /// it (its orbit about the focus plus, for a star off the focus, its share of the pair's
+    /// orbit), closest and farthest distance, largest and smallest radius, for the stars of
+    /// `stars`. On a one-star world: the planet's orbit and the star, as before.
+    fn star_motion_bounds(&self, stars: &[usize]) -> StarBounds {
+        let ours = crate::orbit::OrbitExtremes::of(
+            self.semi_major_axis_m(),
+            self.spec().orbit.eccentricity,
+            self.year_s(),
+        );
+        let mut b = StarBounds {
+            fastest_m_s: 0.0,
+            closest_m: f64::INFINITY,
+            farthest_m: 0.0,
+            largest_radius_m: 0.0,
+            smallest_radius_m: f64::INFINITY,
+        };
+        for &k in stars {
+            let radius = self.star_radius_of_m(k).unwrap_or(0.0);
+            b.largest_radius_m = b.largest_radius_m.max(radius);
+            b.smallest_radius_m = b.smallest_radius_m.min(radius);
+            let (speed, closest, farthest) = match self.companion() {
+                Some(c) if k == 1 || self.primary_is_off_focus() => {
+                    let pair = &c.pair;
+                    let rel = crate::orbit::OrbitExtremes::of(
+                        pair.separation_m,
+                        pair.eccentricity,
+                        pair.period_s,
+                    );
+                    let total = pair.primary_mass_m_sun + pair.companion_mass_m_sun;
+                    let share = match (pair.arrangement, k) {
+                        (crate::world::CompanionArrangement::Wide, _) => 1.0,
+                        (_, 0) => pair.companion_mass_m_sun / total,
+                        _ => pair.primary_mass_m_sun / total,
+                    };
+                    (
+                        ours.fastest_m_s + share * rel.fastest_m_s,
+                        // |A + B| ≥ |A| − |B| and ≥ |B| − |A| (triangle inequality).
+                        (ours.closest_m - share * rel.farthest_m)
+                            .max(share * rel.closest_m - ours.farthest_m)
+                            .max(radius),
+                        ours.farthest_m + share * rel.farthest_m,
+                    )
+                }
+                _ => (ours.fastest_m_s, ours.closest_m, ours.farthest_m),
+            };
+            b.fastest_m_s = b.fastest_m_s.max(speed);
+            b.closest_m = b.closest_m.min(closest);
+            b.farthest_m = b.farthest_m.max(farthest);
+        }
+        b
+    }
+
+    /// Bounds on how fast `occluder`'s clearance against star 0 can change, from any place
+    /// (`None` for an occluder this world does not have); see
+    /// [`Planet::occluder_motion_against`].
     pub fn occluder_motion(&self, occluder: Occluder) -> Option<OccluderMotion> {
+        self.occluder_motion_against(occluder, 0)
+    }
+
+    /// Bounds on how fast `occluder`'s clearance against star `star` can change, from any
+    /// place (`None` for an occluder that cannot hide that star).
+    pub fn occluder_motion_against(
+        &self,
+        occluder: Occluder,
+        star: usize,
+    ) -> Option<OccluderMotion> {
+        if !self.occluder_can_hide(occluder, star) {
+            return None;
+        }
+        let planet_r = self.body().radius_km * 1000.0;
+        // Speed of the observer about the planet's axis, m/s (largest at the equator).
+        let v_obs = planet_r * std::f64::consts::TAU / self.spin().sidereal_day_s;
+        let target = self.star_motion_bounds(&[star]);
+        // A direction to a point at distance d moving at relative speed v turns at most v/d;
+        // the elongation changes at most as fast as both directions together, and each disc's
+        // angular radius at most (radius × the direction's rate).
+        let star_rate = (target.fastest_m_s + v_obs) / (target.closest_m - planet_r).max(1.0);
+        let star_r_max =
+            crate::light::angular_radius(target.largest_radius_m, target.closest_m - planet_r);
+        let star_contact =
+            crate::light::angular_radius(target.smallest_radius_m, target.farthest_m + planet_r);
         match occluder {
             Occluder::Moon(i) => {
                 let orbit = self.moon_orbits().get(i)?;
-                let planet_r = self.body().radius_km * 1000.0;
-                // Speed of the observer about the planet's axis, m/s (largest at the equator).
-                let v_obs = planet_r * std::f64::consts::TAU / self.spin().sidereal_day_s;
                 let moon = crate::orbit::OrbitExtremes::of(
                     orbit.distance_m,
                     orbit.eccentricity,
                     orbit.period_s,
                 );
-                let ours = crate::orbit::OrbitExtremes::of(
-                    self.semi_major_axis_m(),
-                    self.spec().orbit.eccentricity,
-                    self.year_s(),
-                );
-                // A direction to a point at distance d moving at relative speed v turns at most
-                // v/d; the elongation changes at most as fast as both directions together, and
-                // each disc's angular radius at most (radius × the direction's rate).
                 let moon_rate = (moon.fastest_m_s + v_obs) / (moon.closest_m - planet_r).max(1.0);
-                let star_rate = (ours.fastest_m_s + v_obs) / (ours.closest_m - planet_r).max(1.0);
                 let moon_r_max = crate::light::angular_radius(
                     orbit.radius_m,
                     (moon.closest_m - planet_r).max(orbit.radius_m),
                 );
-                let star_r_max =
-                    crate::light::angular_radius(self.star_radius_m(), ours.closest_m - planet_r);
                 let rate = (moon_rate * (1.0 + moon_r_max) + star_rate * (1.0 + star_r_max))
                     * OCCLUDER_RATE_MARGIN;
                 let contact =
                     crate::light::angular_radius(orbit.radius_m, moon.farthest_m + planet_r)
-                        + crate::light::angular_radius(
-                            self.star_radius_m(),
-                            ours.farthest_m + planet_r,
-                        );
+                        + star_contact;
                 Some(OccluderMotion {
                     max_rate_rad_s: rate,
                     min_contact_rad: contact,
                     longest_s: crate::moons::synodic_period_s(orbit.period_s, self.year_s())
                         .min(self.year_s()),
+                })
+            }
+            Occluder::Star(k) => {
+                let pair = &self.companion()?.pair;
+                let other = self.star_motion_bounds(&[k]);
+                let other_rate =
+                    (other.fastest_m_s + v_obs) / (other.closest_m - planet_r).max(1.0);
+                let other_r_max = crate::light::angular_radius(
+                    other.largest_radius_m,
+                    other.closest_m - planet_r,
+                );
+                let rate = (other_rate * (1.0 + other_r_max) + star_rate * (1.0 + star_r_max))
+                    * OCCLUDER_RATE_MARGIN;
+                let contact = crate::light::angular_radius(
+                    other.smallest_radius_m,
+                    other.farthest_m + planet_r,
+                ) + star_contact;
+                // The pair lines up again once per synodic period of its orbit against the
+                // planet's (circumbinary), or of the planet's year against the companion's
+                // slow orbit (wide).
+                let longest_s = crate::moons::synodic_period_s(pair.period_s, self.year_s());
+                Some(OccluderMotion {
+                    max_rate_rad_s: rate,
+                    min_contact_rad: contact,
+                    longest_s: if longest_s.is_finite() {
+                        longest_s
+                    } else {
+                        self.year_s()
+                    },
                 })
             }
         }

@@ -49,6 +49,7 @@ pub struct Planet {
     moon_orbits: Vec<MoonOrbit>,
     light_model: StarLightModel,
     calendar: Calendar,
+    companion: Option<crate::binary_orbit::CompanionStar>,
 }
 
 impl Planet {
@@ -143,7 +144,17 @@ impl Planet {
         // on a tidally locked world.
         let tropical_year_days = crate::leap_rules::tropical_year_s_of(&orbit) / day_s;
         let calendar = Calendar::new(spec.calendar.as_ref(), tropical_year_days);
+        let companion = match &spec.companion {
+            Some(c) => Some(crate::binary_orbit::CompanionStar::new(
+                c,
+                &spec.star,
+                &atmosphere,
+                semi_major_axis_m,
+            )?),
+            None => None,
+        };
         Ok(Planet {
+            companion,
             calendar,
             spec: spec.clone(),
             orbit,
@@ -226,6 +237,11 @@ impl Planet {
     /// The spectral light model of this star and atmosphere (built with the planet).
     pub fn light_model(&self) -> &StarLightModel {
         &self.light_model
+    }
+
+    /// The second star, if the world has one (see [`crate::binary_orbit`]).
+    pub fn companion(&self) -> Option<&crate::binary_orbit::CompanionStar> {
+        self.companion.as_ref()
     }
 
     /// The calendar with its defaults filled in (see [`Planet::calendar`]).

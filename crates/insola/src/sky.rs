@@ -41,6 +41,11 @@ pub struct StarInstant {
     pub toa_flux_w_m2: f64,
     /// Angular radius of the star's disc, radians.
     pub angular_radius_rad: f64,
+    /// Which star: 0 the primary (the world's `star`), 1 the companion.
+    pub star: usize,
+    /// Ecliptic latitude of the star seen from the planet, radians (0 for a star in the
+    /// planet's orbital plane: the primary, a circumbinary companion).
+    pub ecliptic_latitude_rad: f64,
     /// Sine of the declination (kept so per-place queries need no trigonometry of it).
     pub sin_declination: f64,
     /// Cosine of the declination.
@@ -90,7 +95,7 @@ impl PreparedPlace {
 /// series `x + x³/6 + 3x⁵/40 + 5x⁷/112`, whose next term, `35x⁹/1152`, is below 10⁻¹⁷ of `x`
 /// there (the series of arcsine; standard).
 #[inline]
-fn small_asin(x: f64) -> f64 {
+pub(crate) fn small_asin(x: f64) -> f64 {
     if x < 0.01 {
         let x2 = x * x;
         x * (1.0 + x2 * (1.0 / 6.0 + x2 * (3.0 / 40.0 + x2 * (5.0 / 112.0))))
@@ -101,7 +106,13 @@ fn small_asin(x: f64) -> f64 {
 
 impl Planet {
     /// The place-independent state of the star at world time `t_s` (seconds since zero).
+    ///
+    /// On a circumbinary world this is the primary, off the barycentre by its share of the
+    /// pair's orbit ([`Planet::star_instant_of`]); elsewhere the star at the orbit's focus.
     pub fn star_instant(&self, t_s: f64) -> StarInstant {
+        if self.primary_is_off_focus() {
+            return self.paired_star_instant(0, t_s);
+        }
         let o = self.orbit().state_at(t_s);
         // Equatorial coordinates from sin/cos of λ with the tilt's sine and cosine precomputed
         // (same formula as `frames::equatorial_from_ecliptic_longitude`).
@@ -126,6 +137,8 @@ impl Planet {
             toa_flux_w_m2: self.flux_at_mean_distance_w_m2()
                 / (o.distance_factor * o.distance_factor),
             angular_radius_rad: small_asin((self.star_radius_m() / distance_m).min(1.0)),
+            star: 0,
+            ecliptic_latitude_rad: 0.0,
             sin_declination: sin_dec,
             cos_declination: cos_dec,
         }
@@ -163,8 +176,13 @@ impl Planet {
     }
 
     /// Daily-mean top-of-atmosphere insolation at `latitude_rad` on the day containing `t_s`,
-    /// W m⁻² (Berger 1978; declination and distance taken at `t_s`).
+    /// W m⁻² (Berger 1978; declination and distance taken at `t_s`). On a world with a
+    /// shining companion, by quadrature over the day centred on `t_s`
+    /// ([`Planet::two_star_daily_mean_insolation_w_m2`]).
     pub fn daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
+        if self.has_shining_companion() {
+            return self.two_star_daily_mean_insolation_w_m2(t_s, latitude_rad);
+        }
         let i = self.star_instant(t_s);
         insolation::daily_mean_w_m2(
             self.flux_at_mean_distance_w_m2(),

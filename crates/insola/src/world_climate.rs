@@ -5,8 +5,9 @@
 use serde::{Deserialize, Serialize};
 
 use crate::climate::{
-    AnnualForcing, ClimateCycle, ClimateError, ClimateSnapshot, ClimateSpec, ClimateZone, Season,
-    SeasonSample, equilibrate,
+    AnnualForcing, BandInsolation, ClimateCycle, ClimateError, ClimateGrid, ClimateSnapshot,
+    ClimateSpec, ClimateZone, EnergyBalanceModel, Season, SeasonSample, Start, equilibrate,
+    equilibrate_model,
 };
 use crate::error::QueryError;
 use crate::planet::Planet;
@@ -118,7 +119,8 @@ impl Planet {
     }
 
     /// The orbit's forcing as the climate model takes it: `steps` samples of declination and
-    /// distance evenly spaced in time over one year, starting at time zero.
+    /// distance evenly spaced in time over one year, starting at time zero. On a world of two
+    /// stars this is the primary's; [`Planet::star_forcings`] gives each star's.
     pub fn annual_forcing(&self, steps: usize) -> AnnualForcing {
         let n = steps.max(1);
         let samples = (0..n)
@@ -137,11 +139,51 @@ impl Planet {
         }
     }
 
+    /// The forcing of each shining star (primary first), as [`Planet::annual_forcing`] gives
+    /// the primary's: `steps` samples of that star's declination and distance factor (its
+    /// distance over the planet's semi-major axis), with its own flux at that distance.
+    pub fn star_forcings(&self, steps: usize) -> Vec<AnnualForcing> {
+        let n = steps.max(1);
+        self.shining_stars()
+            .map(|k| {
+                let samples = (0..n)
+                    .filter_map(|i| self.star_instant_of(k, i as f64 / n as f64 * self.year_s()))
+                    .map(|s| SeasonSample {
+                        declination_rad: s.declination_rad,
+                        distance_factor: s.distance_factor,
+                    })
+                    .collect();
+                AnnualForcing {
+                    s0_w_m2: self.flux_at_mean_distance_of_w_m2(k).unwrap_or(0.0),
+                    year_s: self.year_s(),
+                    samples,
+                }
+            })
+            .collect()
+    }
+
     /// Runs the climate model to its repeating year (milliseconds for the default 90 bands).
+    ///
+    /// With a shining companion the model is forced by the sum of both stars' insolation
+    /// ([`BandInsolation::from_star_forcings`] of [`Planet::star_forcings`]): at each step
+    /// each star's band mean with its own declination and distance. Mutual eclipses of the
+    /// stars, a few hours long, are left out of this forcing. The cycle keeps the primary's
+    /// forcing for its day-night queries.
     pub fn equilibrate_climate(&self) -> Result<ClimateCycle, ClimateError> {
         let spec = self.climate_spec();
         let forcing = self.annual_forcing(spec.steps_per_year);
-        equilibrate(&spec, &forcing)
+        if !self.has_shining_companion() {
+            return equilibrate(&spec, &forcing);
+        }
+        let grid = ClimateGrid::new(spec.bands)?;
+        spec.validate("climate")?;
+        let table = BandInsolation::from_star_forcings(
+            &self.star_forcings(spec.steps_per_year),
+            &grid,
+            spec.steps_per_year,
+        )?;
+        let model = EnergyBalanceModel::new(&spec, table)?;
+        equilibrate_model(&model, Some(&forcing), &Start::SteadyAnnualMean)
     }
 
     /// Temperature and season at `place`, `elevation_m` above the reference level, at `t_s`,

@@ -64,8 +64,63 @@ pub struct Facts {
     pub season_dates: Vec<insola::calendar_design::SeasonDate>,
     /// How far each wanders over the leap rule's period.
     pub season_wander: Vec<insola::calendar_design::SeasonWander>,
+    /// The second star, on a world with a companion.
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub companion: Option<CompanionFacts>,
     /// Things a designer may want to know.
     pub warnings: Vec<String>,
+}
+
+/// The second star in a few numbers.
+#[derive(Debug, Serialize)]
+pub struct CompanionFacts {
+    /// `circumbinary` (the planet orbits both) or `wide` (the planet orbits the primary).
+    pub arrangement: String,
+    /// Period of the pair, standard days.
+    pub period_days: f64,
+    /// Semi-major axis of the pair's relative orbit, AU.
+    pub separation_au: f64,
+    /// Eccentricity of the pair's orbit.
+    pub eccentricity: f64,
+    /// The companion's flux at the planet's mean distance, W m⁻².
+    pub flux_at_mean_distance_w_m2: f64,
+    /// Effective temperature of the companion, kelvin.
+    pub temperature_k: f64,
+    /// The Holman & Wiegert (1999) stability limit on the planet's semi-major axis, AU
+    /// (innermost stable orbit for circumbinary, outermost for wide).
+    pub stability_limit_au: f64,
+}
+
+/// The companion's facts, if the world has one.
+fn companion_facts(p: &Planet) -> Option<CompanionFacts> {
+    use insola::world::{CompanionArrangement, holman_wiegert_p_type, holman_wiegert_s_type};
+    let c = p.companion()?;
+    let spec = p.spec().companion.as_ref()?;
+    let pair = &c.pair;
+    let total = pair.primary_mass_m_sun + pair.companion_mass_m_sun;
+    let a_b = pair.separation_m / insola::constants::AU_M;
+    let (arrangement, limit) = match pair.arrangement {
+        CompanionArrangement::Circumbinary => (
+            "circumbinary",
+            holman_wiegert_p_type(
+                pair.primary_mass_m_sun.min(pair.companion_mass_m_sun) / total,
+                pair.eccentricity,
+            ) * a_b,
+        ),
+        CompanionArrangement::Wide => (
+            "wide",
+            holman_wiegert_s_type(pair.companion_mass_m_sun / total, pair.eccentricity) * a_b,
+        ),
+    };
+    Some(CompanionFacts {
+        arrangement: arrangement.into(),
+        period_days: pair.period_s / SECONDS_PER_DAY,
+        separation_au: a_b,
+        eccentricity: pair.eccentricity,
+        flux_at_mean_distance_w_m2: c.flux_at_mean_distance_w_m2,
+        temperature_k: spec.star.temperature_k,
+        stability_limit_au: limit,
+    })
 }
 
 /// The calendar in a few numbers.
@@ -220,6 +275,7 @@ pub fn facts(p: &Planet) -> Facts {
         },
         season_dates: p.season_dates(first_year),
         season_wander: p.season_wander(),
+        companion: companion_facts(p),
         warnings,
     }
 }
@@ -341,6 +397,18 @@ pub fn run(args: Args) -> Result<(), String> {
         f.star_angular_diameter_deg,
         f.standard_rise_altitude_deg
     );
+    if let Some(c) = &f.companion {
+        say!(
+            "  second star      {} pair: {:.0} K, {:.1} W/m² at mean distance; the stars orbit each other every {:.3} d, {:.4} AU apart (e {:.3}); stability limit {:.4} AU",
+            c.arrangement,
+            c.temperature_k,
+            c.flux_at_mean_distance_w_m2,
+            c.period_days,
+            c.separation_au,
+            c.eccentricity,
+            c.stability_limit_au
+        );
+    }
     let c = &f.calendar;
     let days = if c.moon.is_some() {
         String::new()

@@ -69,6 +69,54 @@ pub struct DayReport {
     pub astronomical_dawn_h: Option<f64>,
     /// Astronomical dusk, local hours.
     pub astronomical_dusk_h: Option<f64>,
+    /// Each star after the primary (the fields above are the primary's); empty on a one-star
+    /// world.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub other_stars: Vec<DayStarReport>,
+}
+
+/// Rise, transit and set of one star after the primary during the local day.
+#[derive(Debug, Serialize)]
+pub struct DayStarReport {
+    /// Index of the star (1: the companion).
+    pub star: usize,
+    /// First rise this day, local hours; null if none.
+    pub rise_h: Option<f64>,
+    /// First upper transit this day, local hours; null if none.
+    pub transit_h: Option<f64>,
+    /// First set this day, local hours; null if none.
+    pub set_h: Option<f64>,
+}
+
+/// Rise, transit and set of each star after the primary during the local day of `ev`.
+fn other_stars(p: &Planet, place: insola::Place, ev: &DayEvents) -> Vec<DayStarReport> {
+    use insola::sky_events::{EventFilter, EventGroup, SkyBody, SkyEventKind};
+    let filter = EventFilter::only([EventGroup::RiseSet, EventGroup::Transit]);
+    let events = p
+        .sky_events_between(
+            place,
+            ev.day_start_s,
+            ev.day_start_s + ev.day_length_s,
+            &filter,
+        )
+        .unwrap_or_default();
+    p.shining_stars()
+        .skip(1)
+        .map(|k| {
+            let first = |want: fn(SkyBody) -> SkyEventKind| {
+                events
+                    .iter()
+                    .find(|e| e.kind == want(SkyBody::Star(k)))
+                    .map(|e| ev.local_hours(e.at_s))
+            };
+            DayStarReport {
+                star: k,
+                rise_h: first(SkyEventKind::Rise),
+                transit_h: first(SkyEventKind::Transit),
+                set_h: first(SkyEventKind::Set),
+            }
+        })
+        .collect()
 }
 
 /// Builds the report from the core's events.
@@ -99,6 +147,7 @@ pub fn report(p: &Planet, day: i64, ev: &DayEvents) -> DayReport {
         nautical_dusk_h,
         astronomical_dawn_h,
         astronomical_dusk_h,
+        other_stars: Vec::new(),
     }
 }
 
@@ -147,7 +196,9 @@ pub fn run(args: Args) -> Result<(), String> {
         args.utc.as_deref(),
         args.at.lon,
     )?;
-    let r = report(&p, day, &p.day_events(day, place));
+    let ev = p.day_events(day, place);
+    let mut r = report(&p, day, &ev);
+    r.other_stars = other_stars(&p, place, &ev);
     if args.json {
         return super::output::print_json(&r);
     }
@@ -168,6 +219,11 @@ pub fn run(args: Args) -> Result<(), String> {
             .as_ref()
             .map_or(String::new(), |w| format!(", weekday {w}"))
     );
+    if !r.other_stars.is_empty() {
+        say!(
+            "  primary (star 0); twilight below is the primary's, `insola events` gives the combined light's"
+        );
+    }
     match r.polar {
         Some(Polar::Day) => say!("  the star never sets (polar day)"),
         Some(Polar::Night) => say!("  the star never rises (polar night)"),
@@ -177,6 +233,15 @@ pub fn run(args: Args) -> Result<(), String> {
             hm(r.transit_h),
             hm(r.sunset_h)
         ),
+    }
+    for o in &r.other_stars {
+        say!(
+            "  star {}: rise {}   transit {}   set {}",
+            o.star,
+            hm(o.rise_h),
+            hm(o.transit_h),
+            hm(o.set_h)
+        );
     }
     if let Some(a) = r.transit_altitude_deg {
         say!("  transit altitude {a:.2}°");

@@ -128,9 +128,19 @@ fn moon_name(p: &Planet, i: usize) -> String {
         .map_or_else(|| format!("moon {i}"), |m| m.name.clone())
 }
 
+/// `star` on a one-star world; `primary` and `companion` on a world of two.
+fn star_name(p: &Planet, k: usize) -> String {
+    match (p.star_count(), k) {
+        (1, _) => SkyBody::Star(k).to_string(),
+        (_, 0) => "primary".into(),
+        (_, 1) => "companion".into(),
+        _ => SkyBody::Star(k).to_string(),
+    }
+}
+
 fn body_name(p: &Planet, body: SkyBody) -> String {
     match body {
-        SkyBody::Star(_) => body.to_string(),
+        SkyBody::Star(k) => star_name(p, k),
         SkyBody::Moon(i) => moon_name(p, i),
     }
 }
@@ -146,10 +156,11 @@ pub fn describe(p: &Planet, kind: &SkyEventKind) -> String {
         SkyEventKind::StarEclipse { star, by, stage: s } => {
             let by = match by {
                 Occluder::Moon(i) => moon_name(p, *i),
+                Occluder::Star(k) => format!("the {}", star_name(p, *k)),
             };
             format!(
                 "eclipse of the {} by {by} {}",
-                SkyBody::Star(*star),
+                star_name(p, *star),
                 stage(s)
             )
         }

@@ -83,6 +83,31 @@ pub struct SkyReport {
     pub twilight: String,
     /// Each moon.
     pub moons: Vec<MoonReport>,
+    /// Each star after the primary (the fields above are the primary's, except the twilight,
+    /// which is of the combined light); empty on a one-star world.
+    #[serde(skip_serializing_if = "Vec::is_empty")]
+    pub other_stars: Vec<StarReport>,
+}
+
+/// One star after the primary in the sky report.
+#[derive(Debug, Serialize)]
+pub struct StarReport {
+    /// Index of the star (1: the companion).
+    pub star: usize,
+    /// Geometric altitude of its centre, degrees.
+    pub altitude_deg: f64,
+    /// Azimuth, degrees.
+    pub azimuth_deg: f64,
+    /// Distance, AU.
+    pub distance_au: f64,
+    /// Top-of-atmosphere insolation from it on a horizontal surface, W m⁻².
+    pub toa_insolation_w_m2: f64,
+    /// Direct-beam illuminance on a surface facing it, lux.
+    pub direct_illuminance_lux: f64,
+    /// Correlated colour temperature of its light, kelvin.
+    pub light_cct_k: f64,
+    /// Fraction of its disc hidden (by a moon or the other star).
+    pub eclipse_fraction: f64,
 }
 
 /// One moon in the sky report.
@@ -178,6 +203,22 @@ pub fn report(p: &Planet, t: f64, place: Place, mode: LightMode) -> SkyReport {
                 eclipse_fraction: m.eclipse_fraction,
             })
             .collect(),
+        other_stars: l
+            .other_stars
+            .iter()
+            .map(|o| StarReport {
+                star: o.star,
+                altitude_deg: o.light.altitude_rad.to_degrees(),
+                azimuth_deg: o.light.azimuth_rad.to_degrees(),
+                distance_au: p
+                    .star_instant_of(o.star, t)
+                    .map_or(f64::NAN, |i| i.distance_au),
+                toa_insolation_w_m2: o.toa_insolation_w_m2,
+                direct_illuminance_lux: o.light.illuminance_lux,
+                light_cct_k: o.light.cct_k,
+                eclipse_fraction: o.eclipse_fraction,
+            })
+            .collect(),
     }
 }
 
@@ -233,6 +274,23 @@ pub fn run(args: Args) -> Result<(), String> {
         "            top-of-atmosphere insolation {:.1} W/m²",
         r.toa_insolation_w_m2
     );
+    for o in &r.other_stars {
+        say!(
+            "  star {}    altitude {:8.3}°  azimuth {:8.3}°  distance {:.5} AU  direct {:.4e} lx  CCT {:.0} K  insolation {:.1} W/m²{}",
+            o.star,
+            o.altitude_deg,
+            o.azimuth_deg,
+            o.distance_au,
+            o.direct_illuminance_lux,
+            o.light_cct_k,
+            o.toa_insolation_w_m2,
+            if o.eclipse_fraction > 0.0 {
+                format!("  eclipsed {:.0} %", 100.0 * o.eclipse_fraction)
+            } else {
+                String::new()
+            }
+        );
+    }
     for m in &r.moons {
         say!(
             "  moon {:<10} altitude {:7.2}°  azimuth {:7.2}°  lit {:5.1} %  {:.3e} lx{}",

@@ -31,8 +31,26 @@ pub struct YearRow {
     pub daylight_h: f64,
     /// Altitude at transit (or the highest sampled altitude when there is no transit), degrees.
     pub noon_altitude_deg: f64,
-    /// Mean top-of-atmosphere insolation over the local day, W m⁻².
+    /// Mean top-of-atmosphere insolation over the local day, W m⁻² (from the primary on a
+    /// world of two stars).
     pub insolation_w_m2: f64,
+    /// Mean top-of-atmosphere insolation from the companion over the local day, W m⁻², on a
+    /// world with a shining companion (each star's share dimmed by what hides it).
+    #[serde(skip_serializing_if = "Option::is_none")]
+    pub companion_insolation_w_m2: Option<f64>,
+}
+
+/// Mean top-of-atmosphere insolation from star 1 over `INSOLATION_SAMPLES` instants from
+/// `start_s` at `step_s`, W m⁻².
+fn companion_mean(p: &Planet, place: Place, start_s: f64, step_s: f64) -> Option<f64> {
+    if !p.has_shining_companion() {
+        return None;
+    }
+    let sum: f64 = (0..INSOLATION_SAMPLES)
+        .filter_map(|i| p.star_instant_of(1, start_s + i as f64 * step_s))
+        .map(|instant| p.top_of_atmosphere_insolation_w_m2(&instant, place))
+        .sum();
+    Some(sum / INSOLATION_SAMPLES as f64)
 }
 
 /// Samples per day for the daily insolation average.
@@ -72,6 +90,12 @@ pub fn rows(p: &Planet, place: Place) -> Vec<YearRow> {
                 daylight_h: ev.sunlight.time_above_s / 3600.0,
                 noon_altitude_deg: ev.transit_altitude_rad.unwrap_or(best).to_degrees(),
                 insolation_w_m2: sum / INSOLATION_SAMPLES as f64,
+                companion_insolation_w_m2: companion_mean(
+                    p,
+                    place,
+                    ev.day_start_s + 0.5 * step_s,
+                    step_s,
+                ),
             }
         })
         .collect()
@@ -92,40 +116,57 @@ pub fn run(args: Args) -> Result<(), String> {
     if args.json {
         return super::output::print_json(&rows);
     }
+    let two = p.has_shining_companion();
+    let extra = |r: &YearRow, width: usize| match r.companion_insolation_w_m2 {
+        Some(q) if width == 0 => format!(",{q:.3}"),
+        Some(q) => format!(" {q:>width$.1}"),
+        None => String::new(),
+    };
     if args.csv {
-        say!("day,date,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2");
+        say!(
+            "day,date,year_fraction,daylight_h,noon_altitude_deg,insolation_w_m2{}",
+            if two {
+                ",companion_insolation_w_m2"
+            } else {
+                ""
+            }
+        );
         for r in &rows {
             say!(
-                "{},{},{:.6},{:.4},{:.4},{:.3}",
+                "{},{},{:.6},{:.4},{:.4},{:.3}{}",
                 r.day,
                 r.date,
                 r.year_fraction,
                 r.daylight_h,
                 r.noon_altitude_deg,
-                r.insolation_w_m2
+                r.insolation_w_m2,
+                extra(r, 0)
             );
         }
         return Ok(());
     }
     say!("{} at {:.3}°, {:.3}°", p.spec().name, lat, args.at.lon);
+    super::output::caution(&p);
     say!(
-        "{:>6} {:>16} {:>8} {:>10} {:>12} {:>12}",
+        "{:>6} {:>16} {:>8} {:>10} {:>12} {:>12}{}",
         "day",
         "date",
         "year",
         "daylight",
         "noon alt °",
-        "insol W/m²"
+        "insol W/m²",
+        if two { "  star 1 W/m²" } else { "" }
     );
     for r in &rows {
         say!(
-            "{:>6} {:>16} {:>8.4} {:>10} {:>12.2} {:>12.1}",
+            "{:>6} {:>16} {:>8.4} {:>10} {:>12.2} {:>12.1}{}",
             r.day,
             r.date,
             r.year_fraction,
             super::output::hm(Some(r.daylight_h)),
             r.noon_altitude_deg,
-            r.insolation_w_m2
+            r.insolation_w_m2,
+            extra(r, 12)
         );
     }
     Ok(())

@@ -132,6 +132,61 @@ impl BandInsolation {
         })
     }
 
+    /// The table of several stars shining on one planet: the sum of each star's
+    /// [`BandInsolation::from_forcing`] table (insolation adds), with each band's mean cosine
+    /// of the zenith angle the insolation-weighted mean of the stars' (`Σ μ_k Q_k / Σ Q_k`, `Q_k`
+    /// the band's yearly insolation from star `k`). One forcing gives exactly its own table.
+    pub fn from_star_forcings(
+        forcings: &[AnnualForcing],
+        grid: &ClimateGrid,
+        steps: usize,
+    ) -> Result<Self, SpecError> {
+        let Some((first, rest)) = forcings.split_first() else {
+            return Err(SpecError::inconsistent(
+                "forcing.samples",
+                "at least one star's forcing is needed",
+            ));
+        };
+        let mut table = Self::from_forcing(first, grid, steps)?;
+        if rest.is_empty() {
+            return Ok(table);
+        }
+        let mut weighted: Vec<f64> = Vec::new();
+        let mut totals: Vec<f64> = Vec::new();
+        let mut add_weights = |t: &BandInsolation| {
+            let q = t.mean_per_band();
+            let mu = t.mean_cos_zenith.clone().unwrap_or_default();
+            weighted.resize(q.len(), 0.0);
+            totals.resize(q.len(), 0.0);
+            for j in 0..q.len() {
+                weighted[j] += mu.get(j).copied().unwrap_or(0.0) * q[j];
+                totals[j] += q[j];
+            }
+        };
+        add_weights(&table);
+        for forcing in rest {
+            let other = Self::from_forcing(forcing, grid, steps)?;
+            add_weights(&other);
+            for (q, o) in table.w_m2.iter_mut().zip(&other.w_m2) {
+                *q += o;
+            }
+        }
+        table.mean_cos_zenith = Some(
+            weighted
+                .iter()
+                .zip(&totals)
+                .map(|(w, q)| {
+                    if *q > 0.0 {
+                        (w / q).clamp(0.0, 1.0)
+                    } else {
+                        0.0
+                    }
+                })
+                .collect(),
+        );
+        Ok(table)
+    }
+
     /// A table from a function `q(x, year_fraction)` in W m⁻², `x = sin φ` at band centres —
     /// for idealised forcings such as the Legendre forms used in analytic checks. Non-finite or
     /// negative values are an error naming `forcing.insolation`.

@@ -8,8 +8,10 @@
 
 mod mean;
 mod moon;
+mod stars;
 
 pub use mean::MeanLighting;
+pub use stars::StarLighting;
 
 use glam::DVec3;
 use serde::{Deserialize, Serialize};
@@ -94,14 +96,20 @@ pub struct LightingState {
     pub star_eclipse_fraction: f64,
     /// The occluder hiding the most of the star, if any.
     pub star_occluded_by: Option<crate::occlusion::Occluder>,
-    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    /// Top-of-atmosphere insolation on a horizontal surface from every star, W m⁻² (each
+    /// star's share dimmed by what hides it).
     pub toa_insolation_w_m2: f64,
     /// Diffuse sky light (always as at the ground: it is the atmosphere's own light).
     pub sky: SkyLight,
     /// Each moon, in world-file order.
     pub moons: Vec<MoonLighting>,
-    /// Day, civil, nautical or astronomical twilight, or night.
+    /// Day, civil, nautical or astronomical twilight, or night: of the combined light of the
+    /// stars (the lighter of their phases; night only when every star is down).
     pub twilight: TwilightPhase,
+    /// Every star after the primary (`star`), by index: empty on a one-star world. Their
+    /// light is included in the sky light, `toa_insolation_w_m2` and the ground total.
+    #[serde(default, skip_serializing_if = "Vec::is_empty")]
+    pub other_stars: Vec<StarLighting>,
     /// What a light meter lying on the ground reads: star, sky and moons on a horizontal
     /// surface at the ground, after the atmosphere, lux — in either mode (for exposure).
     pub ground_horizontal_illuminance_lux: f64,
@@ -133,7 +141,17 @@ impl Planet {
                 b
             }
         };
-        let sky = model.sky(pos.altitude_rad, instant.toa_flux_w_m2 * (1.0 - eclipse));
+        let mut sky = model.sky(pos.altitude_rad, instant.toa_flux_w_m2 * (1.0 - eclipse));
+        let mut twilight =
+            TwilightPhase::from_altitude(pos.altitude_rad, self.standard_rise_altitude_rad());
+        let others: Vec<_> = (1..self.star_count())
+            .filter_map(|k| self.star_instant_of(k, t_s))
+            .filter_map(|i| self.other_star_light(&i, place, mode))
+            .collect();
+        for other in &others {
+            sky = stars::add_sky(sky, &other.sky);
+            twilight = stars::lighter(twilight, other.twilight);
+        }
         let moons = self.moon_lighting(&instant, place, mode);
         let ground_star_lux = match mode {
             LightMode::Ground => beam.illuminance_lux,
@@ -149,6 +167,15 @@ impl Planet {
             + moons
                 .iter()
                 .map(|m| on_ground(m.ground_illuminance_lux, m.light.direction_enu))
+                .sum::<f64>()
+            + others
+                .iter()
+                .map(|o| o.lighting.ground_horizontal_lux)
+                .sum::<f64>();
+        let toa_insolation = pos.toa_insolation_w_m2 * occlusion.transmitted_fraction()
+            + others
+                .iter()
+                .map(|o| o.lighting.toa_insolation_w_m2)
                 .sum::<f64>();
         LightingState {
             t_s,
@@ -165,17 +192,15 @@ impl Planet {
             },
             star_eclipse_fraction: eclipse,
             star_occluded_by: occlusion.by,
-            toa_insolation_w_m2: pos.toa_insolation_w_m2 * occlusion.transmitted_fraction(),
+            toa_insolation_w_m2: toa_insolation,
             sky: SkyLight {
                 illuminance_lux: sky.total_lux(),
                 colour_linear_srgb: sky.colour.linear_srgb,
             },
             moons,
-            twilight: TwilightPhase::from_altitude(
-                pos.altitude_rad,
-                self.standard_rise_altitude_rad(),
-            ),
+            twilight,
             ground_horizontal_illuminance_lux: ground_horizontal,
+            other_stars: others.into_iter().map(|o| o.lighting).collect(),
         }
     }
 }

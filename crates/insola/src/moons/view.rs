@@ -51,7 +51,7 @@ pub(crate) fn angle_between(a: DVec3, b: DVec3) -> f64 {
 
 impl Planet {
     /// Observer position relative to the planet's centre, ecliptic frame, metres.
-    fn observer_offset(&self, instant: &StarInstant, place: Place) -> DVec3 {
+    pub(crate) fn observer_offset(&self, instant: &StarInstant, place: Place) -> DVec3 {
         let r = self.body().radius_km * 1000.0;
         let lst = instant.sidereal_angle_rad + place.longitude_rad;
         let (sp, cp) = place.latitude_rad.sin_cos();
@@ -63,7 +63,10 @@ impl Planet {
     /// Star position relative to the planet's centre, ecliptic frame, metres.
     fn star_offset(&self, instant: &StarInstant) -> DVec3 {
         let (s, c) = instant.ecliptic_longitude_rad.sin_cos();
-        DVec3::new(c, s, 0.0) * (instant.distance_factor * self.semi_major_axis_m())
+        // A star off the orbital plane (a wide companion) by its ecliptic latitude; exactly
+        // the in-plane vector when that is 0.
+        let (sb, cb) = instant.ecliptic_latitude_rad.sin_cos();
+        DVec3::new(cb * c, cb * s, sb) * (instant.distance_factor * self.semi_major_axis_m())
     }
 
     /// The planet's disc against the star's, seen from a moon at `moon` (planet-centred,
@@ -72,7 +75,11 @@ impl Planet {
         let star = self.star_offset(instant);
         ShadowGeometry {
             separation_rad: angle_between(-moon, star - moon),
-            star_radius_rad: angular_radius(self.star_radius_m(), (star - moon).length()),
+            star_radius_rad: angular_radius(
+                self.star_radius_of_m(instant.star)
+                    .unwrap_or(self.star_radius_m()),
+                (star - moon).length(),
+            ),
             planet_radius_rad: angular_radius(self.body().radius_km * 1000.0, moon.length()),
         }
     }

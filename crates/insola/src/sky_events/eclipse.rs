@@ -4,7 +4,7 @@
 
 use super::filter::EventFilter;
 use super::kind::{EclipseStage, SkyBody, SkyEvent};
-use crate::occlusion::OccluderMotion;
+use crate::occlusion::{Occluder, OccluderMotion};
 use crate::planet::Planet;
 use crate::search::{refine_change, walk_to_sign_change};
 use crate::sky::Place;
@@ -110,8 +110,9 @@ fn eclipses(
 }
 
 impl Planet {
-    /// Eclipses of the star at `place` in `[from_s, to_s)` by every occluder `filter` follows
-    /// (moons by index), through the occlusion seam.
+    /// Eclipses of each shining star at `place` in `[from_s, to_s)` by every occluder
+    /// `filter` follows (moons by index, the other star), through the occlusion seam; star 0
+    /// first, each star's occluders in [`Planet::occluders`] order.
     pub(super) fn star_eclipses_into(
         &self,
         place: Place,
@@ -121,28 +122,36 @@ impl Planet {
         out: &mut Vec<SkyEvent>,
     ) {
         let occluders: Vec<_> = self.occluders().collect();
-        for by in occluders {
-            let followed = match by {
-                crate::occlusion::Occluder::Moon(i) => filter.follows(SkyBody::Moon(i)),
-            };
-            let Some(motion) = self.occluder_motion(by).filter(|_| followed) else {
-                continue;
-            };
-            let clearance = |t: f64| self.occluder_clearance_rad(by, &self.star_instant(t), place);
-            let fraction = |t: f64| self.occluder_cover(by, &self.star_instant(t), place);
-            eclipses(
-                from_s,
-                to_s,
-                motion,
-                &clearance,
-                &fraction,
-                &mut |at_s, stage| {
-                    out.push(SkyEvent {
-                        at_s,
-                        kind: SkyEventKind::StarEclipse { star: 0, by, stage },
-                    })
-                },
-            );
+        for star in self.shining_stars() {
+            for &by in &occluders {
+                let followed = match by {
+                    Occluder::Moon(i) => filter.follows(SkyBody::Moon(i)),
+                    Occluder::Star(k) => filter.follows(SkyBody::Star(k)),
+                };
+                let Some(motion) = self.occluder_motion_against(by, star).filter(|_| followed)
+                else {
+                    continue;
+                };
+                let instant = |t: f64| {
+                    self.star_instant_of(star, t)
+                        .unwrap_or_else(|| self.star_instant(t))
+                };
+                let clearance = |t: f64| self.occluder_clearance_rad(by, &instant(t), place);
+                let fraction = |t: f64| self.occluder_cover(by, &instant(t), place);
+                eclipses(
+                    from_s,
+                    to_s,
+                    motion,
+                    &clearance,
+                    &fraction,
+                    &mut |at_s, stage| {
+                        out.push(SkyEvent {
+                            at_s,
+                            kind: SkyEventKind::StarEclipse { star, by, stage },
+                        })
+                    },
+                );
+            }
         }
     }
 

@@ -10,36 +10,68 @@ use crate::planet::Planet;
 use crate::search::{Grid, refine_change};
 use crate::sky::Place;
 
-/// What the star's events are decided by at one instant.
-#[derive(Debug, Clone, Copy)]
-struct StarSample {
-    /// Above the rise altitude (the light's `is_up`).
+/// What one star's events are decided by at one instant.
+#[derive(Debug, Clone, Copy, Default)]
+struct OneStar {
+    /// Above the star's rise altitude (the light's `is_up`).
     up: bool,
-    /// At or above each band's lower limit, in [`TwilightBand::ALL`] order.
-    above_band: [bool; 3],
     /// Hour angle in the sense the sky turns, radians.
     hour_angle_rad: f64,
 }
 
+/// What the stars' events are decided by at one instant: each shining star (at most two) and
+/// the combined twilight.
+#[derive(Debug, Clone, Copy)]
+struct StarSample {
+    /// Each shining star, in [`Planet::shining_stars`] order (unused entries default).
+    stars: [OneStar; 2],
+    /// At or above each band's lower limit for some shining star, in [`TwilightBand::ALL`]
+    /// order (the twilight of the combined light: night only when every star is down).
+    above_band: [bool; 3],
+}
+
 impl Planet {
-    /// Sampling step for the star's events, seconds: 1/96 of the shorter of the day and year.
+    /// Sampling step for the stars' events, seconds: 1/96 of the shorter of the day and year
+    /// (and, on a circumbinary world, of the pair's synodic period against the planet's
+    /// orbit, over which the stars swing about their barycentre).
     pub(crate) fn star_step_s(&self) -> f64 {
-        self.day_s().min(self.year_s()) / 96.0
+        let base = self.day_s().min(self.year_s());
+        let pair = match self.companion() {
+            Some(c) if self.primary_is_off_focus() => {
+                crate::moons::synodic_period_s(c.pair.period_s, self.year_s())
+            }
+            _ => f64::INFINITY,
+        };
+        base.min(pair) / 96.0
     }
 
-    fn star_sample(&self, t_s: f64, place: Place) -> StarSample {
-        let pos = self.star_position(t_s, place);
-        // Degrees, exactly as `TwilightPhase::from_altitude` compares them.
-        let h_deg = pos.altitude_rad.to_degrees();
-        StarSample {
-            up: pos.altitude_rad > self.standard_rise_altitude_rad(),
-            above_band: TwilightBand::ALL.map(|b| h_deg >= b.lower_limit_deg()),
-            hour_angle_rad: pos.hour_angle_rad,
+    fn star_sample(&self, t_s: f64, place: Place, stars: &[usize]) -> StarSample {
+        let mut out = StarSample {
+            stars: [OneStar::default(); 2],
+            above_band: [false; 3],
+        };
+        for (slot, &k) in stars.iter().enumerate().take(2) {
+            let Some(pos) = self.star_position_of(k, t_s, place) else {
+                continue;
+            };
+            let rise = self
+                .standard_rise_altitude_of_rad(k)
+                .unwrap_or(self.standard_rise_altitude_rad());
+            // Degrees, exactly as `TwilightPhase::from_altitude` compares them.
+            let h_deg = pos.altitude_rad.to_degrees();
+            for (above, band) in out.above_band.iter_mut().zip(TwilightBand::ALL) {
+                *above |= h_deg >= band.lower_limit_deg();
+            }
+            out.stars[slot] = OneStar {
+                up: pos.altitude_rad > rise,
+                hour_angle_rad: pos.hour_angle_rad,
+            };
         }
+        out
     }
 
-    /// Rise, set, transit and twilight events of the star in `[from_s, to_s)`, as `filter`
-    /// selects them.
+    /// Rise, set and transit events of each shining star and the twilight events of their
+    /// combined light in `[from_s, to_s)`, as `filter` selects them.
     pub(super) fn star_events_into(
         &self,
         place: Place,
@@ -56,45 +88,51 @@ impl Planet {
         if !(rise_set || transit || twilight) {
             return;
         }
-        let star = SkyBody::Star(0);
-        let sample = |t: f64| self.star_sample(t, place);
+        let stars: Vec<usize> = self.shining_stars().collect();
+        let sample = |t: f64| self.star_sample(t, place, &stars);
         let grid = Grid::new(from_s, to_s, self.star_step_s());
         let mut a = sample(from_s);
         for (ta, tb) in grid.steps() {
             let b = sample(tb);
-            if rise_set && a.up != b.up {
-                let at_s = refine_change(ta, tb, a.up, &mut |t| sample(t).up);
-                let kind = if b.up {
-                    SkyEventKind::Rise(star)
-                } else {
-                    SkyEventKind::Set(star)
-                };
-                out.push(SkyEvent { at_s, kind });
-            }
-            if twilight {
-                for (k, band) in TwilightBand::ALL.into_iter().enumerate() {
-                    if a.above_band[k] != b.above_band[k] {
-                        let at_s = refine_change(ta, tb, a.above_band[k], &mut |t| {
-                            sample(t).above_band[k]
-                        });
-                        let kind = if b.above_band[k] {
-                            SkyEventKind::Dawn(band)
-                        } else {
-                            SkyEventKind::Dusk(band)
-                        };
-                        out.push(SkyEvent { at_s, kind });
+            for (slot, &k) in stars.iter().enumerate().take(2) {
+                let star = SkyBody::Star(k);
+                let (sa, sb) = (a.stars[slot], b.stars[slot]);
+                if rise_set && sa.up != sb.up {
+                    let at_s = refine_change(ta, tb, sa.up, &mut |t| sample(t).stars[slot].up);
+                    let kind = if sb.up {
+                        SkyEventKind::Rise(star)
+                    } else {
+                        SkyEventKind::Set(star)
+                    };
+                    out.push(SkyEvent { at_s, kind });
+                }
+                if twilight && slot == 0 {
+                    for (j, band) in TwilightBand::ALL.into_iter().enumerate() {
+                        if a.above_band[j] != b.above_band[j] {
+                            let at_s = refine_change(ta, tb, a.above_band[j], &mut |t| {
+                                sample(t).above_band[j]
+                            });
+                            let kind = if b.above_band[j] {
+                                SkyEventKind::Dawn(band)
+                            } else {
+                                SkyEventKind::Dusk(band)
+                            };
+                            out.push(SkyEvent { at_s, kind });
+                        }
                     }
                 }
-            }
-            // The hour angle grows through 0 at upper transit; its wrap from +π to −π is the
-            // lower transit, not an event here.
-            let (ha, hb) = (a.hour_angle_rad, b.hour_angle_rad);
-            if transit && ha <= 0.0 && hb > 0.0 && hb - ha < PI {
-                let at_s = refine_change(ta, tb, false, &mut |t| sample(t).hour_angle_rad > 0.0);
-                out.push(SkyEvent {
-                    at_s,
-                    kind: SkyEventKind::Transit(star),
-                });
+                // The hour angle grows through 0 at upper transit; its wrap from +π to −π is
+                // the lower transit, not an event here.
+                let (ha, hb) = (sa.hour_angle_rad, sb.hour_angle_rad);
+                if transit && ha <= 0.0 && hb > 0.0 && hb - ha < PI {
+                    let at_s = refine_change(ta, tb, false, &mut |t| {
+                        sample(t).stars[slot].hour_angle_rad > 0.0
+                    });
+                    out.push(SkyEvent {
+                        at_s,
+                        kind: SkyEventKind::Transit(star),
+                    });
+                }
             }
             a = b;
         }

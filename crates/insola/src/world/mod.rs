@@ -9,11 +9,13 @@
 //! | `moons` | [`MoonSpec`] | `moon.rs` |
 //! | `calendar` | [`CalendarSpec`] | `calendar.rs` |
 //! | `calendar.moon_months` | [`MoonMonthsSpec`] | `moon_months.rs` |
+//! | `companion` | [`CompanionSpec`], [`StellarOrbitSpec`] | `companion.rs` |
 //! | `climate` | [`crate::climate::ClimateSpec`] | `climate/spec.rs` |
 
 mod atmosphere;
 mod body;
 mod calendar;
+mod companion;
 mod load;
 mod moon;
 mod moon_months;
@@ -24,6 +26,7 @@ mod validate;
 pub use atmosphere::*;
 pub use body::*;
 pub use calendar::*;
+pub use companion::*;
 pub use load::*;
 pub use moon::*;
 pub use moon_months::*;

@@ -48,6 +48,9 @@ pub struct WorldSpec {
     /// Names and lengths of months, and the number of the first year.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub calendar: Option<super::CalendarSpec>,
+    /// A second star, circumbinary or wide (see [`super::CompanionSpec`]). Absent: one star.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub companion: Option<super::CompanionSpec>,
 }
 
 /// The star. Give exactly one of `luminosity_l_sun` and `flux_at_mean_distance_w_m2`.
@@ -64,6 +67,10 @@ pub struct StarSpec {
     /// Flux at the planet's mean distance (the semi-major axis), W m⁻². Earth: 1361.
     #[serde(default, skip_serializing_if = "Option::is_none")]
     pub flux_at_mean_distance_w_m2: Option<f64>,
+    /// Mass in nominal solar masses; required for both stars when the world has a
+    /// `companion`, otherwise unused.
+    #[serde(default, skip_serializing_if = "Option::is_none")]
+    pub mass_m_sun: Option<f64>,
 }
 
 /// The orbit around the star (Keplerian, periapsis fixed).

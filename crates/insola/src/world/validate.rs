@@ -32,6 +32,9 @@ impl WorldSpec {
         for (i, moon) in self.moons.iter().enumerate() {
             moon.validate(&format!("moons[{i}]"), self)?;
         }
+        if let Some(companion) = &self.companion {
+            companion.validate("companion", self)?;
+        }
         if let Some(calendar) = &self.calendar {
             calendar.validate("calendar")?;
             if let Some(m) = &calendar.moon_months
@@ -75,6 +78,9 @@ impl StarSpec {
                     "missing: give `luminosity_l_sun` or `flux_at_mean_distance_w_m2`",
                 ));
             }
+        }
+        if let Some(m) = self.mass_m_sun {
+            check_range_open_min("star.mass_m_sun", m, 0.0, 1.0e3)?;
         }
         Ok(())
     }
