@@ -20,8 +20,9 @@
 //!   reference place (star light with the day's mean horizontal illuminance, from where the star
 //!   stands highest that day; the sky light's mean), constant through the day;
 //! - the year faster as well: the **mean of the year** (constant);
-//! - moons are not shown while the day is held (their light would come and go with their own
-//!   cycles): the held sky is the star's and the sky's.
+//! - moons, and on a world of two suns the second star, are not shown while the day is held
+//!   (their light would come and go with their own cycles): the held sky is the primary star's
+//!   and the sky's.
 //!
 //! A cycle shown exactly lasts at least the limit, so it flashes at most once a second however
 //! the frames fall; a held cycle does not flash at all. Only what is displayed changes: the
@@ -92,6 +93,8 @@ pub struct DisplayedSky {
     pub star: SceneBody,
     /// Each moon's light as shown (all down while a cycle is held).
     pub moons: Vec<SceneBody>,
+    /// Each star after the primary as shown, by index from 1 (down while a cycle is held).
+    pub other_stars: Vec<SceneBody>,
     /// Diffuse light of the sky on a horizontal surface, lux.
     pub sky_illuminance_lux: f64,
     /// Colour of the sky's light, linear sRGB with the largest channel 1.
@@ -108,6 +111,7 @@ impl DisplayedSky {
             hold: SkyHold::Exact,
             star: sky.star,
             moons: sky.moons.iter().map(|m| m.body).collect(),
+            other_stars: sky.other_stars.iter().map(|o| o.body).collect(),
             sky_illuminance_lux: sky.sky_illuminance_lux,
             sky_color: sky.sky_color,
             horizontal_illuminance_lux: sky.horizontal_illuminance_lux,
@@ -162,6 +166,10 @@ fn mean_sky(
             .moons
             .iter()
             .map(|m| SceneBody::from_core(m, compass))
+            .collect(),
+        // Down: the mean is the primary's (see the module docs).
+        other_stars: (1..planet.star_count())
+            .map(|_| SceneBody::default())
             .collect(),
         sky_illuminance_lux: mean.sky.illuminance_lux,
         sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),

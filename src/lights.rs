@@ -22,21 +22,39 @@ use crate::flash_guard::DisplayedSky;
 use crate::settings::{InsolaSettings, SceneCompass};
 use crate::sky_state::SceneBody;
 
-/// Marks a directional light driven by the star.
+/// Marks a directional light driven by one star: the world's star ([`StarLight::PRIMARY`]) or,
+/// on a world of two suns, the companion ([`StarLight::of`]`(1)`). The light is hidden while
+/// its star is down, or if the world has no such star.
 ///
 /// ```
 /// use bevy::prelude::*;
 /// use bevy_insola::StarLight;
 /// fn setup(mut commands: Commands) {
-///     // Shadows are yours to choose; the plugin sets rotation, illuminance and colour.
-///     commands.spawn((StarLight, DirectionalLight { shadow_maps_enabled: true, ..default() }));
+///     // The plugin sets rotation, illuminance and colour; shadows are yours, except that on a
+///     // world of several stars it keeps them on the brighter star's light only
+///     // (`InsolaSettings::shadows_follow_brighter_star`).
+///     commands.spawn((StarLight::PRIMARY, DirectionalLight { shadow_maps_enabled: true, ..default() }));
+///     commands.spawn(StarLight::of(1));
 /// }
 /// # App::new().add_systems(Startup, setup).update();
 /// ```
-#[derive(Component, Debug, Clone, Copy, Default, Reflect)]
+#[derive(Component, Debug, Clone, Copy, Default, PartialEq, Eq, Reflect)]
 #[reflect(Component, Debug, Default, Clone)]
 #[require(DirectionalLight)]
-pub struct StarLight;
+pub struct StarLight {
+    /// Index of the star: 0 the world's star (the primary), 1 its companion.
+    pub star: usize,
+}
+
+impl StarLight {
+    /// The light of the world's star (the primary of a pair).
+    pub const PRIMARY: StarLight = StarLight { star: 0 };
+
+    /// The light of star `star` (0 the primary, 1 the companion).
+    pub const fn of(star: usize) -> StarLight {
+        StarLight { star }
+    }
+}
 
 /// Marks a directional light driven by one moon (by its index in the world file's `moons`).
 /// The light is hidden while the moon is down, or if the world has no such moon.
@@ -127,26 +145,59 @@ type LightParts = (
 pub(crate) fn write_body_lights(
     sky: Res<DisplayedSky>,
     settings: Res<InsolaSettings>,
-    mut stars: Query<LightParts, (With<StarLight>, Without<MoonLight>)>,
+    mut stars: Query<(&StarLight, LightParts), Without<MoonLight>>,
     mut moons: Query<(&MoonLight, LightParts), Without<StarLight>>,
 ) {
     if !sky.ready {
         return;
     }
     let compass = &settings.compass;
-    for (mut light, mut transform, mut visibility) in &mut stars {
+    let body_of = |star: usize| match star {
+        0 => Some(&sky.star),
+        k => sky.other_stars.get(k - 1),
+    };
+    // With several stars, shadows go to the brightest star that is up (the primary when none
+    // is), so a scene casts one set of shadows and the right one.
+    let shadow_star = (settings.shadows_follow_brighter_star && !sky.other_stars.is_empty())
+        .then(|| brightest_star(&sky));
+    for (marker, (mut light, mut transform, mut visibility)) in &mut stars {
         drive_light(
-            Some(&sky.star),
+            body_of(marker.star),
             compass,
             &mut light,
             &mut transform,
             &mut visibility,
         );
+        if let Some(brightest) = shadow_star {
+            let shadows = marker.star == brightest;
+            if light.shadow_maps_enabled != shadows {
+                light.shadow_maps_enabled = shadows;
+            }
+        }
     }
     for (moon, (mut light, mut transform, mut visibility)) in &mut moons {
         let body = sky.moons.get(moon.moon);
         drive_light(body, compass, &mut light, &mut transform, &mut visibility);
     }
+}
+
+/// Index of the star giving the most light on a surface facing it among those up (0 when none
+/// is up).
+pub fn brightest_star(sky: &DisplayedSky) -> usize {
+    let mut best = (
+        0,
+        if sky.star.is_up {
+            sky.star.illuminance_lux
+        } else {
+            -1.0
+        },
+    );
+    for (i, o) in sky.other_stars.iter().enumerate() {
+        if o.is_up && o.illuminance_lux > best.1 {
+            best = (i + 1, o.illuminance_lux);
+        }
+    }
+    best.0
 }
 
 /// Writes the sky's diffuse light into [`GlobalAmbientLight`] (when

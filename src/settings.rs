@@ -167,6 +167,11 @@ pub struct InsolaSettings {
     /// Which sky events are sent as [`SkyNotice`](crate::SkyNotice)s. Default: all of them.
     #[reflect(ignore)]
     pub notices: EventFilter,
+    /// On a world of several stars, keep shadow maps on the light of the brightest star that
+    /// is up and off on the others' ([`StarLight`](crate::StarLight)), so the scene casts one
+    /// set of shadows, from the right sun. Off: shadows stay as you set them. One-star worlds
+    /// are never touched. Default `true`.
+    pub shadows_follow_brighter_star: bool,
 }
 
 impl Default for InsolaSettings {
@@ -181,6 +186,7 @@ impl Default for InsolaSettings {
             max_notified_span_s: 2.0 * 1000.0 * 86_400.0,
             flash_guard: FlashGuard::default(),
             notices: EventFilter::all(),
+            shadows_follow_brighter_star: true,
         }
     }
 }

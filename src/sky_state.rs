@@ -85,6 +85,21 @@ pub struct SkyMoon {
     pub eclipse_fraction: f64,
 }
 
+/// A star after the primary (a world's companion) as the scene sees it.
+#[derive(Debug, Clone, Copy, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyStar {
+    /// Index of the star: 1 for the companion (0 is the primary, [`SkyState::star`]).
+    pub star: usize,
+    /// Direction and light (already dimmed by `eclipse_fraction`).
+    pub body: SceneBody,
+    /// Fraction of its disc hidden by a moon or the other star, 0–1.
+    pub eclipse_fraction: f64,
+    /// Its top-of-atmosphere insolation on a horizontal surface, W m⁻² (included in
+    /// [`SkyState::toa_insolation_w_m2`]).
+    pub toa_insolation_w_m2: f64,
+}
+
 /// The calendar reading of the clock's instant.
 #[derive(Debug, Clone, PartialEq, Default, Reflect)]
 #[reflect(Debug, PartialEq, Default, Clone)]
@@ -141,11 +156,15 @@ pub struct SkyState {
     pub ready: bool,
     /// World time of this state, seconds since time zero.
     pub world_time_s: f64,
-    /// The star.
+    /// The star (the primary, index 0, on a world of two).
     pub star: SceneBody,
-    /// Fraction of the star's disc covered by moons, 0–1 (already applied to its light).
+    /// Fraction of the star's disc covered by moons (or the other star), 0–1 (already applied
+    /// to its light).
     pub star_eclipse_fraction: f64,
-    /// Top-of-atmosphere insolation on a horizontal surface, W m⁻².
+    /// Every star after the primary, by index (empty on a one-star world). Drive a light with
+    /// [`StarLight::of`](crate::StarLight::of).
+    pub other_stars: Vec<SkyStar>,
+    /// Top-of-atmosphere insolation on a horizontal surface from every star, W m⁻².
     pub toa_insolation_w_m2: f64,
     /// Diffuse light of the sky dome on a horizontal surface, lux (always as at the ground).
     pub sky_illuminance_lux: f64,
@@ -153,7 +172,8 @@ pub struct SkyState {
     pub sky_color: LinearRgba,
     /// Each moon, in world-file order.
     pub moons: Vec<SkyMoon>,
-    /// Day, a twilight, or night (the core's bands; not reflected).
+    /// Day, a twilight, or night (the core's bands, of the stars' combined light: night only
+    /// when every star is down; not reflected).
     #[reflect(ignore)]
     pub phase: TwilightPhase,
     /// Total illuminance on a horizontal surface at the ground (star, sky and moons), lux; what
@@ -196,6 +216,16 @@ impl SkyState {
                 eclipse_fraction: m.eclipse_fraction,
             })
             .collect();
+        let other_stars = lighting
+            .other_stars
+            .iter()
+            .map(|o| SkyStar {
+                star: o.star,
+                body: SceneBody::from_core(&o.light, compass),
+                eclipse_fraction: o.eclipse_fraction,
+                toa_insolation_w_m2: o.toa_insolation_w_m2,
+            })
+            .collect();
         // The meter reads the light at the ground, also when the lights carry the light above
         // the air (the engine's atmosphere then dims them on their way to the scene).
         let horizontal = lighting.ground_horizontal_illuminance_lux;
@@ -207,6 +237,7 @@ impl SkyState {
             world_time_s: t_s,
             star,
             star_eclipse_fraction: lighting.star_eclipse_fraction,
+            other_stars,
             toa_insolation_w_m2: lighting.toa_insolation_w_m2,
             sky_illuminance_lux: lighting.sky.illuminance_lux,
             sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),

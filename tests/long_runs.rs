@@ -92,7 +92,7 @@ fn run_years(years: u64) {
         ))
         .init_resource::<Tally>()
         .add_systems(Last, tally);
-    app.world_mut().spawn(StarLight);
+    app.world_mut().spawn(StarLight::PRIMARY);
     app.world_mut()
         .spawn(SurfacePlace::from_degrees(10.0, 20.0).unwrap());
 

@@ -104,13 +104,21 @@ fn follow_world_air(
     }
 }
 
-/// Gives star lights a visible disc the size of the star as seen from the world.
-fn size_star_disc(sky: Res<SkyState>, mut discs: Query<&mut SunDisk, With<StarLight>>) {
+/// Gives star lights a visible disc the size of their star as seen from the world.
+fn size_star_disc(sky: Res<SkyState>, mut discs: Query<(&StarLight, &mut SunDisk)>) {
     if !sky.ready {
         return;
     }
-    let size = (2.0 * sky.star.angular_radius_rad) as f32;
-    for mut disc in &mut discs {
+    for (marker, mut disc) in &mut discs {
+        let radius = match marker.star {
+            0 => Some(sky.star.angular_radius_rad),
+            k => sky
+                .other_stars
+                .get(k - 1)
+                .map(|o| o.body.angular_radius_rad),
+        };
+        let Some(radius) = radius else { continue };
+        let size = (2.0 * radius) as f32;
         if disc.angular_size != size {
             disc.angular_size = size;
         }

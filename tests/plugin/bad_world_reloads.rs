@@ -17,7 +17,7 @@ fn every_broken_world_is_rejected_on_reload_and_the_last_good_world_keeps_runnin
     let dir = temp_dir("bad-corpus");
     std::fs::write(dir.join("live.world.ron"), BRINDLE).unwrap();
     let mut app = asset_app(&dir, "live.world.ron");
-    app.world_mut().spawn(StarLight);
+    app.world_mut().spawn(StarLight::PRIMARY);
     update_until(&mut app, |app| world_name(app).is_some());
     let generation = app.world().resource::<ActiveWorld>().generation();
 

@@ -39,7 +39,7 @@ fn lit_app(rate: f64, fps: f64, guard: FlashGuard) -> App {
         .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_secs_f64(
             1.0 / fps,
         )));
-    app.world_mut().spawn(StarLight);
+    app.world_mut().spawn(StarLight::PRIMARY);
     app.world_mut()
         .spawn((ExposureFollowsSky::default(), Exposure::default()));
     app

@@ -27,7 +27,7 @@ fn linear(color: Color) -> LinearRgba {
 fn app_with_light(text: &str, settings: InsolaSettings) -> App {
     let mut app = app(text, settings, 0.0, FRAME);
     app.world_mut().spawn((
-        StarLight,
+        StarLight::PRIMARY,
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()

@@ -16,4 +16,5 @@ mod observers;
 mod parts;
 mod reference_observer;
 mod save_games;
+mod two_suns;
 mod world_files;

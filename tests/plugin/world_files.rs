@@ -53,7 +53,7 @@ fn a_broken_reload_keeps_the_last_good_world() {
     let dir = temp_dir("reload");
     std::fs::write(dir.join("brindle.world.ron"), BRINDLE).unwrap();
     let mut app = asset_app(&dir, "brindle.world.ron");
-    app.world_mut().spawn(StarLight);
+    app.world_mut().spawn(StarLight::PRIMARY);
     update_until(&mut app, |app| world_name(app).is_some());
     assert_eq!(world_name(&app).as_deref(), Some("Brindle"));
     let generation = app.world().resource::<ActiveWorld>().generation();

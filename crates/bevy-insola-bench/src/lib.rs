@@ -62,7 +62,7 @@ pub fn insola_scene_app() -> App {
             .with_reference_place(35.0, 0.0)
             .with_clock_rate(CLOCK_RATE),
     );
-    app.world_mut().spawn(StarLight);
+    app.world_mut().spawn(StarLight::PRIMARY);
     app.world_mut().spawn(MoonLight { moon: 0 });
     app.world_mut().spawn(MoonLight { moon: 1 });
     app.world_mut()

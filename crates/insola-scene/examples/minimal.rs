@@ -23,7 +23,7 @@ fn setup(
     mut materials: ResMut<Assets<StandardMaterial>>,
 ) {
     commands.spawn((
-        StarLight,
+        StarLight::PRIMARY,
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()

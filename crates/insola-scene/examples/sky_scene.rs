@@ -298,7 +298,7 @@ fn face_the_star(
 fn spawn_lights(mut commands: Commands) {
     // The star: shadows over the whole place. The plugin sets direction, lux and colour.
     commands.spawn((
-        StarLight,
+        StarLight::PRIMARY,
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()

@@ -58,7 +58,7 @@ fn spawn_scene(
         Transform::from_xyz(0.0, 6.0, 0.0),
     ));
     commands.spawn((
-        StarLight,
+        StarLight::PRIMARY,
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()
