@@ -100,6 +100,62 @@ pub struct SkyStar {
     pub toa_insolation_w_m2: f64,
 }
 
+/// One annulus of the ring as the scene sees it: its edges as directions from the scene
+/// (above the horizon only), so a scene can draw the band across its sky.
+#[derive(Debug, Clone, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyRingArc {
+    /// Index of the annulus in the world file's `ring.annuli`.
+    pub annulus: usize,
+    /// Unit vectors toward points along the inner edge, in scene axes, in order along the ring
+    /// (empty when that edge is below the horizon).
+    pub inner: Vec<Vec3>,
+    /// Likewise along the outer edge.
+    pub outer: Vec<Vec3>,
+}
+
+/// The ring seen from the reference place: the arc of each annulus, which face is lit, and its
+/// shadow here (from the core's [`Planet::ring_view`]).
+#[derive(Debug, Clone, PartialEq, Default, Reflect)]
+#[reflect(Debug, PartialEq, Default, Clone)]
+pub struct SkyRing {
+    /// Each annulus whose outer edge shows above the horizon, inside out.
+    pub arcs: Vec<SkyRingArc>,
+    /// `true` if the place looks at the face the star lights (draw it bright); `false` for the
+    /// unlit face, seen by the light that filters through (draw it dim), or edge-on.
+    pub sees_lit_face: bool,
+    /// Fraction of the star's direct beam the ring lets through here now, 0–1 (already
+    /// applied to the star's light).
+    pub shadow_transmission: f64,
+    /// Index of the annulus whose shadow falls here now, if any.
+    pub shadow_annulus: Option<usize>,
+}
+
+impl SkyRing {
+    fn from_core(view: &insola::rings::RingView, compass: &SceneCompass) -> SkyRing {
+        let to_scene = |points: &[insola::rings::RingEdgePoint]| {
+            points
+                .iter()
+                .map(|p| compass.to_scene(p.direction_enu).normalize_or_zero())
+                .collect()
+        };
+        SkyRing {
+            arcs: view
+                .arcs
+                .iter()
+                .map(|a| SkyRingArc {
+                    annulus: a.annulus,
+                    inner: to_scene(&a.inner),
+                    outer: to_scene(&a.outer),
+                })
+                .collect(),
+            sees_lit_face: view.sees_lit_face(),
+            shadow_transmission: view.shadow.transmission,
+            shadow_annulus: view.shadow.annulus,
+        }
+    }
+}
+
 /// The calendar reading of the clock's instant.
 #[derive(Debug, Clone, PartialEq, Default, Reflect)]
 #[reflect(Debug, PartialEq, Default, Clone)]
@@ -164,6 +220,8 @@ pub struct SkyState {
     /// Every star after the primary, by index (empty on a one-star world). Drive a light with
     /// [`StarLight::of`](crate::StarLight::of).
     pub other_stars: Vec<SkyStar>,
+    /// The ring in the sky and its shadow here (`None` on worlds without a ring).
+    pub ring: Option<SkyRing>,
     /// Top-of-atmosphere insolation on a horizontal surface from every star, W m⁻².
     pub toa_insolation_w_m2: f64,
     /// Diffuse light of the sky dome on a horizontal surface, lux (always as at the ground).
@@ -238,6 +296,9 @@ impl SkyState {
             star,
             star_eclipse_fraction: lighting.star_eclipse_fraction,
             other_stars,
+            ring: planet
+                .ring_view(t_s, place)
+                .map(|v| SkyRing::from_core(&v, compass)),
             toa_insolation_w_m2: lighting.toa_insolation_w_m2,
             sky_illuminance_lux: lighting.sky.illuminance_lux,
             sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),

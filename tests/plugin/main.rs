@@ -15,6 +15,7 @@ mod map_climate;
 mod observers;
 mod parts;
 mod reference_observer;
+mod ring;
 mod save_games;
 mod two_suns;
 mod world_files;

@@ -15,7 +15,7 @@ const FRAME: Duration = Duration::from_millis(16);
 const TESSALY: &str = r#"(
     name: "Tessaly",
     star: (temperature_k: 5800, radius_r_sun: 1.0, luminosity_l_sun: 1.0, mass_m_sun: 1.0),
-    orbit: (semi_major_axis_au: 1.1, eccentricity: 0.01, periapsis_longitude_deg: 0, period_days: 340),
+    orbit: (semi_major_axis_au: 1.1, eccentricity: 0.01, periapsis_longitude_deg: 0, period_days: 323.2),
     spin: (obliquity_deg: 20, solar_day_hours: 24),
     companion: (
         star: (temperature_k: 4400, radius_r_sun: 0.7, luminosity_l_sun: 0.2, mass_m_sun: 0.7),
