@@ -4,7 +4,6 @@
 use std::time::Duration;
 
 use crate::common::*;
-use bevy::prelude::*;
 use bevy_insola::prelude::*;
 
 const FRAME: Duration = Duration::from_millis(16);
