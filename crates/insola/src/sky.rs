@@ -178,10 +178,15 @@ impl Planet {
     /// Daily-mean top-of-atmosphere insolation at `latitude_rad` on the day containing `t_s`,
     /// W m⁻² (Berger 1978; declination and distance taken at `t_s`). On a world with a
     /// shining companion, by quadrature over the day centred on `t_s`
-    /// ([`Planet::two_star_daily_mean_insolation_w_m2`]).
+    /// ([`Planet::two_star_daily_mean_insolation_w_m2`]); under a ring that casts a shadow, by
+    /// quadrature over the hour angle with the ring's transmission
+    /// ([`Planet::ring_daily_mean_insolation_w_m2`]).
     pub fn daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
         if self.has_shining_companion() {
             return self.two_star_daily_mean_insolation_w_m2(t_s, latitude_rad);
+        }
+        if self.has_ring_shadow() {
+            return self.ring_daily_mean_insolation_w_m2(t_s, latitude_rad);
         }
         let i = self.star_instant(t_s);
         insolation::daily_mean_w_m2(

@@ -43,6 +43,15 @@ pub fn sample(p: &Planet, q: Quantity, n_lat: usize, n_time: usize) -> Result<Fi
     let lats_rad: Vec<f64> = lats_deg.iter().map(|l| l.to_radians()).collect();
     let mut values = vec![0.0; n_lat * n_time];
     match q {
+        // Under a ring or two suns the closed form does not hold: each cell by the core's
+        // quadrature.
+        Quantity::Insolation if p.daily_mean_needs_quadrature() => {
+            for (k, f) in fractions.iter().enumerate() {
+                for (i, &lat) in lats_rad.iter().enumerate() {
+                    values[k * n_lat + i] = p.daily_mean_insolation_w_m2(f * p.year_s(), lat);
+                }
+            }
+        }
         Quantity::Insolation => {
             let days: Vec<(f64, f64)> = fractions
                 .iter()
@@ -136,7 +145,13 @@ pub fn style(p: &Planet, q: Quantity, field: &Field) -> Style {
             title: format!("{name}: daily sunlight"),
             unit: "W/m²",
             column: "insolation_w_m2",
-            note: "Daily mean at the top of the atmosphere (Berger 1978).",
+            note: if p.has_ring_shadow() {
+                "Daily mean at the top of the atmosphere, after the ring's shadow (quadrature over the day)."
+            } else if p.has_shining_companion() {
+                "Daily mean at the top of the atmosphere from both stars (quadrature over the day)."
+            } else {
+                "Daily mean at the top of the atmosphere (Berger 1978)."
+            },
             scale: Scale::Linear {
                 ramp: SUNLIGHT,
                 lo: 0.0,

@@ -143,10 +143,15 @@ impl Planet {
     /// worlds, Berger's closed form ([`Planet::daily_mean_insolation_w_m2`]) on the others.
     /// Never above the ringless value.
     pub fn ring_daily_mean_insolation_w_m2(&self, t_s: f64, latitude_rad: f64) -> f64 {
-        let Some(ring) = self.ring_geometry() else {
-            return self.daily_mean_insolation_w_m2(t_s, latitude_rad);
-        };
         let i = self.star_instant(t_s);
+        let Some(ring) = self.ring_geometry() else {
+            return crate::insolation::daily_mean_w_m2(
+                self.flux_at_mean_distance_w_m2(),
+                latitude_rad,
+                i.declination_rad,
+                i.distance_factor,
+            );
+        };
         ring_daily_mean_w_m2(
             &ring,
             self.flux_at_mean_distance_w_m2(),
