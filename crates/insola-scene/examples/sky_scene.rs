@@ -112,6 +112,7 @@ fn main() -> AppExit {
                 rebuild_sundial,
                 support::update_status_line,
                 support::stars::turn_star_field,
+                support::ring::draw_ring,
             ),
         );
 
@@ -299,6 +300,23 @@ fn spawn_lights(mut commands: Commands) {
     // The star: shadows over the whole place. The plugin sets direction, lux and colour.
     commands.spawn((
         StarLight::PRIMARY,
+        DirectionalLight {
+            shadow_maps_enabled: true,
+            ..default()
+        },
+        SunDisk::EARTH,
+        CascadeShadowConfigBuilder {
+            num_cascades: 3,
+            first_cascade_far_bound: 32.0,
+            maximum_distance: 140.0,
+            ..default()
+        }
+        .build(),
+    ));
+    // A second sun, on worlds that have one (hidden otherwise). The plugin keeps the shadows on
+    // whichever of the two suns is brighter.
+    commands.spawn((
+        StarLight::of(1),
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()

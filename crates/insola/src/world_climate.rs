@@ -163,11 +163,11 @@ impl Planet {
 
     /// Runs the climate model to its repeating year (milliseconds for the default 90 bands).
     ///
-    /// With a shining companion the model is forced by the sum of both stars' insolation
-    /// ([`BandInsolation::from_star_forcings`] of [`Planet::star_forcings`]): at each step
-    /// each star's band mean with its own declination and distance. Mutual eclipses of the
-    /// stars, a few hours long, are left out of this forcing. The cycle keeps the primary's
-    /// forcing for its day-night queries.
+    /// With a shining companion or a ring the model is forced by the sum of each star's
+    /// insolation ([`Planet::star_band_tables`] of [`Planet::star_forcings`]): at each step each
+    /// star's band mean with its own declination and distance, by quadrature under the ring.
+    /// Mutual eclipses of the stars, a few hours long, are left out of this forcing. The cycle
+    /// keeps the primary's forcing for its day-night queries.
     pub fn equilibrate_climate(&self) -> Result<ClimateCycle, ClimateError> {
         let spec = self.climate_spec();
         let forcing = self.annual_forcing(spec.steps_per_year);

@@ -10,6 +10,7 @@
 pub mod capture;
 #[cfg(feature = "tuning-panel")]
 pub mod panel;
+pub mod ring;
 pub mod stars;
 
 use std::path::PathBuf;

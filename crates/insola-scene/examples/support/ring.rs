@@ -1,0 +1,144 @@
+//! The ring across the sky: each annulus drawn as a band between its inner and outer edges,
+//! from the plugin's [`SkyState::ring`] (the core's geometry for the reference place), on a
+//! far sphere inside the camera's far plane.
+//!
+//! Brightness: the ring is lit by the star above the air whatever the hour on the ground (at
+//! night its lit face still shines), with the luminance of a diffusely reflecting layer,
+//! `L = a · E · (1 − exp(−τ)) / π` for the face the star lights (E the star's illuminance above
+//! the air, a the ring particles' albedo, τ the annulus's optical depth; a Lambertian layer,
+//! common practice, no source), and a tenth of that for the unlit face, which only passes the
+//! light that filters through. The ring's shadow on the ground needs nothing here: the plugin's
+//! star light already carries it.
+
+use bevy::asset::RenderAssetUsages;
+use bevy::light::NotShadowCaster;
+use bevy::mesh::{Indices, PrimitiveTopology};
+use bevy::prelude::*;
+use bevy_insola::ActiveWorld;
+use bevy_insola::prelude::*;
+
+/// Distance of the ring's sphere, m (inside the far plane, in front of the star field).
+const RING_RADIUS_M: f32 = 700.0;
+/// Bond albedo of the ring's particles (icy; invented for the scene).
+const PARTICLE_ALBEDO: f32 = 0.5;
+/// The unlit face's share of the lit face's luminance (common practice, no source).
+const UNLIT_SHARE: f32 = 0.1;
+
+/// One drawn annulus.
+#[derive(Component)]
+pub struct RingBand {
+    annulus: usize,
+    /// The arc the mesh was built from (first and last outer points), to rebuild on change.
+    built_from: (Vec3, Vec3),
+}
+
+/// A band mesh between two edges (each a list of unit directions; the inner edge falls back to
+/// the horizon below the outer one where it is below the horizon).
+fn band_mesh(inner: &[Vec3], outer: &[Vec3]) -> Mesh {
+    let n = outer.len();
+    let inner_at = |i: usize| -> Vec3 {
+        inner
+            .get(i * inner.len().max(1) / n.max(1))
+            .copied()
+            .unwrap_or_else(|| {
+                let o = outer[i];
+                Vec3::new(o.x, 0.0, o.z).normalize_or_zero()
+            })
+    };
+    let mut positions = Vec::with_capacity(2 * n);
+    for (i, o) in outer.iter().enumerate() {
+        positions.push((inner_at(i) * RING_RADIUS_M).to_array());
+        positions.push((*o * RING_RADIUS_M).to_array());
+    }
+    let mut indices = Vec::with_capacity(6 * n);
+    for i in 0..n.saturating_sub(1) as u32 {
+        let (a, b, c, d) = (2 * i, 2 * i + 1, 2 * i + 2, 2 * i + 3);
+        // Both windings: the band is seen from inside the sphere.
+        indices.extend_from_slice(&[a, b, c, b, d, c, a, c, b, b, c, d]);
+    }
+    let normals = vec![[0.0, 1.0, 0.0]; positions.len()];
+    Mesh::new(
+        PrimitiveTopology::TriangleList,
+        RenderAssetUsages::default(),
+    )
+    .with_inserted_attribute(Mesh::ATTRIBUTE_POSITION, positions)
+    .with_inserted_attribute(Mesh::ATTRIBUTE_NORMAL, normals)
+    .with_inserted_indices(Indices::U32(indices))
+}
+
+/// Builds, rebuilds and colours the ring's bands each frame from the sky state.
+pub fn draw_ring(
+    mut commands: Commands,
+    world: Res<ActiveWorld>,
+    clock: Res<WorldClock>,
+    sky: Res<SkyState>,
+    mut meshes: ResMut<Assets<Mesh>>,
+    mut materials: ResMut<Assets<StandardMaterial>>,
+    mut bands: Query<(
+        Entity,
+        &mut RingBand,
+        &mut Mesh3d,
+        &MeshMaterial3d<StandardMaterial>,
+    )>,
+) {
+    let (Some(planet), Some(ring)) = (world.planet(), sky.ring.as_ref().filter(|_| sky.ready))
+    else {
+        for (entity, ..) in &bands {
+            commands.entity(entity).despawn();
+        }
+        return;
+    };
+    let annuli = planet.ring().map(|r| r.annuli.clone()).unwrap_or_default();
+    let instant = planet.star_instant(clock.world_time_s());
+    let star_lux = planet
+        .light_model()
+        .top_of_atmosphere(instant.toa_flux_w_m2)
+        .illuminance_lux as f32;
+    let [r, g, b] = sky.star.color.to_f32_array_no_alpha();
+    let mut seen = Vec::new();
+    for (entity, mut band, mut mesh, material) in &mut bands {
+        let Some(arc) = ring.arcs.iter().find(|a| a.annulus == band.annulus) else {
+            commands.entity(entity).despawn();
+            continue;
+        };
+        seen.push(band.annulus);
+        let key = (arc.outer[0], *arc.outer.last().unwrap_or(&arc.outer[0]));
+        if key != band.built_from {
+            mesh.0 = meshes.add(band_mesh(&arc.inner, &arc.outer));
+            band.built_from = key;
+        }
+        let tau = annuli.get(band.annulus).map_or(0.0, |a| a.optical_depth) as f32;
+        let lit = PARTICLE_ALBEDO * star_lux * (1.0 - (-tau).exp()) / std::f32::consts::PI;
+        let l = if ring.sees_lit_face {
+            lit
+        } else {
+            UNLIT_SHARE * lit
+        };
+        if let Some(m) = materials.get_mut(&material.0) {
+            m.emissive = LinearRgba::rgb(l * r, l * g, l * b);
+        }
+    }
+    for arc in &ring.arcs {
+        if seen.contains(&arc.annulus) || arc.outer.is_empty() {
+            continue;
+        }
+        let material = materials.add(StandardMaterial {
+            base_color: Color::BLACK,
+            unlit: true,
+            // Added to the sky behind it: a thin ring shows the stars through it.
+            alpha_mode: AlphaMode::Add,
+            cull_mode: None,
+            ..default()
+        });
+        commands.spawn((
+            RingBand {
+                annulus: arc.annulus,
+                built_from: (Vec3::ZERO, Vec3::ZERO),
+            },
+            Mesh3d(meshes.add(band_mesh(&arc.inner, &arc.outer))),
+            MeshMaterial3d(material),
+            Transform::default(),
+            NotShadowCaster,
+        ));
+    }
+}
