@@ -13,6 +13,10 @@
 //! threads, because their chunks start on the same anchors.
 //!
 //! No allocation: the output buffers are the caller's.
+//!
+//! Clear sky and the primary star: a track leaves out what can hide the star (moons, a ring's
+//! shadow, the other star of a pair) and a second star's light; ask
+//! [`Planet::top_of_atmosphere_insolation_w_m2`] or [`Planet::lighting`] for those.
 
 mod cursor;
 
@@ -133,9 +137,7 @@ impl Planet {
         times: TrackTimes<'_>,
         out: &mut [StarPosition],
     ) -> Result<(), QueryError> {
-        times.check(out.len())?;
-        self.positions_block(PreparedPlace::new(place), &times, 0, out);
-        Ok(())
+        self.run_track(place, times, out, false, Self::positions_block)
     }
 
     /// Parallel form of [`Planet::star_track_into`] (serial below two chunks of 4096 samples,
@@ -146,16 +148,7 @@ impl Planet {
         times: TrackTimes<'_>,
         out: &mut [StarPosition],
     ) -> Result<(), QueryError> {
-        times.check(out.len())?;
-        let place = PreparedPlace::new(place);
-        if out.len() < 2 * CHUNK {
-            self.positions_block(place, &times, 0, out);
-        } else {
-            crate::parallel::for_each_chunk(out, CHUNK, |c, chunk| {
-                self.positions_block(place, &times, c * CHUNK, chunk)
-            });
-        }
-        Ok(())
+        self.run_track(place, times, out, true, Self::positions_block)
     }
 
     /// Top-of-atmosphere insolation on a horizontal surface at `place` at every instant of
@@ -169,9 +162,7 @@ impl Planet {
         times: TrackTimes<'_>,
         out: &mut [f64],
     ) -> Result<(), QueryError> {
-        times.check(out.len())?;
-        self.insolation_block(PreparedPlace::new(place), &times, 0, out);
-        Ok(())
+        self.run_track(place, times, out, false, Self::insolation_block)
     }
 
     /// Parallel form of [`Planet::toa_insolation_track_into`]; the same results bit for bit.
@@ -181,13 +172,28 @@ impl Planet {
         times: TrackTimes<'_>,
         out: &mut [f64],
     ) -> Result<(), QueryError> {
+        self.run_track(place, times, out, true, Self::insolation_block)
+    }
+
+    /// The one driver of every track: checks the instants and the buffer, then fills `out` by
+    /// `block` (samples `first …` into a slice), in one piece or, when `parallel` and the
+    /// track is long enough to pay for threads, in chunks that start on anchor blocks (so the
+    /// numbers are the same either way).
+    fn run_track<T: Send>(
+        &self,
+        place: Place,
+        times: TrackTimes<'_>,
+        out: &mut [T],
+        parallel: bool,
+        block: fn(&Self, PreparedPlace, &TrackTimes<'_>, usize, &mut [T]),
+    ) -> Result<(), QueryError> {
         times.check(out.len())?;
         let place = PreparedPlace::new(place);
-        if out.len() < 2 * CHUNK {
-            self.insolation_block(place, &times, 0, out);
+        if !parallel || out.len() < 2 * CHUNK {
+            block(self, place, &times, 0, out);
         } else {
             crate::parallel::for_each_chunk(out, CHUNK, |c, chunk| {
-                self.insolation_block(place, &times, c * CHUNK, chunk)
+                block(self, place, &times, c * CHUNK, chunk)
             });
         }
         Ok(())
