@@ -10,6 +10,7 @@ use bevy_egui::{EguiContexts, EguiPlugin, EguiPrimaryContextPass, egui};
 use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
 use egui_plot::{Heatmap, Line, Plot, PlotPoint, PlotPoints, Points};
+use insola::star_track::TrackTimes;
 use insola::{Place, Planet, WorldSpec};
 
 /// Adds the world tuner window.
@@ -340,19 +341,27 @@ fn refresh_plots(
                 .map(|c| [f, c])
         })
         .collect();
-    // The analemma: where the star stands at the same clock time on each day of the year.
+    // The analemma: where the star stands at the same clock time on each day of the year, as
+    // one time series at the place (the core's `star_track`).
     let days = planet.year_in_solar_days();
     state.analemma.clear();
     if days.is_finite() && days >= 2.0 {
         let step = (days / 240.0).max(1.0);
-        let mut d = 0.0;
-        while d < days {
-            let t = planet.local_day_start_s(d.floor() + 0.5, place.longitude_rad);
-            let s = planet.star_position(t, place);
-            state
-                .analemma
-                .push([s.azimuth_rad.to_degrees(), s.altitude_rad.to_degrees()]);
-            d += step;
+        let times: Vec<f64> = (0..)
+            .map(|k| k as f64 * step)
+            .take_while(|d| *d < days)
+            .map(|d| planet.local_day_start_s(d.floor() + 0.5, place.longitude_rad))
+            .collect();
+        let mut track = vec![planet.star_position(0.0, place); times.len()];
+        if planet
+            .star_track_into(place, TrackTimes::Given(&times), &mut track)
+            .is_ok()
+        {
+            state.analemma.extend(
+                track
+                    .iter()
+                    .map(|s| [s.azimuth_rad.to_degrees(), s.altitude_rad.to_degrees()]),
+            );
         }
     }
 }
@@ -369,16 +378,21 @@ fn plots(
     // Star altitude over today.
     let day = planet.local_day_count(t, place.longitude_rad).floor();
     let day_h = planet.day_s() / 3600.0;
-    let altitude: PlotPoints = (0..=96)
-        .map(|i| {
-            let f = i as f64 / 96.0;
-            let at = planet.local_day_start_s(day + f, place.longitude_rad);
-            [
-                f * day_h,
-                planet.star_position(at, place).altitude_rad.to_degrees(),
-            ]
-        })
-        .collect();
+    // One time series per frame: 97 instants a 96th of the day apart.
+    let times = TrackTimes::Even {
+        start_s: planet.local_day_start_s(day, place.longitude_rad),
+        step_s: planet.day_s() / 96.0,
+        count: 97,
+    };
+    let mut track = vec![planet.star_position(0.0, place); times.len()];
+    let altitude: PlotPoints = match planet.star_track_into(place, times, &mut track) {
+        Ok(()) => track
+            .iter()
+            .enumerate()
+            .map(|(i, s)| [i as f64 / 96.0 * day_h, s.altitude_rad.to_degrees()])
+            .collect(),
+        Err(_) => PlotPoints::default(),
+    };
     let now_h = planet
         .local_day_count(t, place.longitude_rad)
         .rem_euclid(1.0)
