@@ -2,13 +2,17 @@
 //! its own temperature as the seasons sweep over it (blue cold, red hot).
 //!
 //! Every tile is an entity with a `SurfacePlace`; the plugin keeps its `LocalConditions`
-//! current. Press `W` for the next world.
+//! current. It starts on Verdance with its continents (`verdance.land.ron`), so the plugin's
+//! map climate colours each tile by land and sea: continental interiors bake and freeze, coasts
+//! stay mild. Press `W` for the next world (other worlds show the zonal climate; the map climate
+//! follows the land file only on Verdance).
 
 mod support;
 
 use bevy::prelude::*;
 use bevy_insola::prelude::*;
-use bevy_insola::{ActiveWorld, WorldFile};
+use bevy_insola::insola::map_climate::SurfaceLayout;
+use bevy_insola::{ActiveWorld, ClimateSurface, WorldFile};
 
 const COLUMNS: usize = 72;
 const ROWS: usize = 36;
@@ -21,13 +25,38 @@ fn main() {
         .add_plugins(DefaultPlugins)
         .add_plugins(
             InsolaPlugins::new()
-                .with_world_file(support::world_asset_path("calvenne"))
+                .with_world_file(support::world_asset_path("verdance"))
                 // Four world days per real second: a year in a little over a minute.
                 .with_clock_rate(4.0 * 21.0 * 3600.0),
         )
+        .insert_resource(verdance_continents())
         .add_systems(Startup, (spawn_map, load_worlds))
-        .add_systems(Update, (colour_by_temperature, next_world))
+        .add_systems(Update, (colour_by_temperature, next_world, land_for_verdance))
         .run();
+}
+
+/// Verdance's invented continents on the map climate's default grid.
+fn verdance_continents() -> ClimateSurface {
+    let text = include_str!("../../../assets/worlds/verdance.land.ron");
+    let layout = SurfaceLayout::from_ron_str(text).expect("the shipped land file is valid");
+    ClimateSurface::new(layout.rasterise(720, 360).expect("a valid raster size"))
+}
+
+/// The land file belongs to Verdance: keep it while Verdance is shown, drop it otherwise.
+fn land_for_verdance(
+    mut commands: Commands,
+    world: Res<ActiveWorld>,
+    surface: Option<Res<ClimateSurface>>,
+) {
+    if !world.is_changed() {
+        return;
+    }
+    let on_verdance = world.planet().is_some_and(|p| p.spec().name == "Verdance");
+    match (on_verdance, surface.is_some()) {
+        (true, false) => commands.insert_resource(verdance_continents()),
+        (false, true) => commands.remove_resource::<ClimateSurface>(),
+        _ => {}
+    }
 }
 
 #[derive(Resource)]
