@@ -10,8 +10,8 @@
 mod support;
 
 use bevy::prelude::*;
-use bevy_insola::prelude::*;
 use bevy_insola::insola::map_climate::SurfaceLayout;
+use bevy_insola::prelude::*;
 use bevy_insola::{ActiveWorld, ClimateSurface, WorldFile};
 
 const COLUMNS: usize = 72;
@@ -31,7 +31,10 @@ fn main() {
         )
         .insert_resource(verdance_continents())
         .add_systems(Startup, (spawn_map, load_worlds))
-        .add_systems(Update, (colour_by_temperature, next_world, land_for_verdance))
+        .add_systems(
+            Update,
+            (colour_by_temperature, next_world, land_for_verdance),
+        )
         .run();
 }
 

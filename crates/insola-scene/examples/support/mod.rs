@@ -330,11 +330,24 @@ pub fn status_text(
             planet.day_s() / clock.rate().abs().max(1e-9)
         )
     };
+    // The second sun and the ring, where the world has them.
+    let mut extra = String::new();
+    for o in &sky.other_stars {
+        extra += &format!(", 2nd star {:+.1} deg", o.body.altitude_rad.to_degrees());
+    }
+    if let Some(ring) = &sky.ring
+        && ring.shadow_transmission < 1.0
+    {
+        extra += &format!(
+            ", ring shadow {:.0}% through",
+            100.0 * ring.shadow_transmission
+        );
+    }
     // Plain ASCII: Bevy's built-in font has no degree sign. Two lines, split where the reader's
     // eye expects (where and when; then the sky), so that long twilight names never wrap
     // mid-phrase on narrow views.
     format!(
-        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season}\nstar {alt:+.1} deg, {phase} | {temperature}{rate}",
+        "{name} {lat:.0}{ns} | {date} {hh:02}:{mm:02} | {season}\nstar {alt:+.1} deg{extra}, {phase} | {temperature}{rate}",
         lat = settings.reference_latitude_deg.abs(),
         ns = if settings.reference_latitude_deg >= 0.0 {
             "N"

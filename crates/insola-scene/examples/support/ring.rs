@@ -6,7 +6,7 @@
 //! night its lit face still shines), with the luminance of a diffusely reflecting layer,
 //! `L = a · E · (1 − exp(−τ)) / π` for the face the star lights (E the star's illuminance above
 //! the air, a the ring particles' albedo, τ the annulus's optical depth; a Lambertian layer,
-//! common practice, no source), and a tenth of that for the unlit face, which only passes the
+//! common practice, no source), and a fiftieth of that for the unlit face, which only passes the
 //! light that filters through. The ring's shadow on the ground needs nothing here: the plugin's
 //! star light already carries it.
 
@@ -17,12 +17,20 @@ use bevy::prelude::*;
 use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
 
-/// Distance of the ring's sphere, m (inside the far plane, in front of the star field).
-const RING_RADIUS_M: f32 = 700.0;
+/// Radius of the ring's sphere around the camera, m. Near, because the engine's atmosphere
+/// adds the glow of the air between the camera and anything drawn (at 700 m, the star field's
+/// distance, a daylit sky would wash the ring out); centred on the camera, so it stays at the
+/// same place in the sky as the camera moves.
+const RING_RADIUS_M: f32 = 60.0;
+/// The camera exposes for the ground, which lies in the ring's shadow; at the luminance above
+/// the ring would burn the whole band to white, so it is drawn this much dimmer (a display
+/// choice for the scene, not physics).
+const DISPLAY_SCALE: f32 = 2e-3;
 /// Bond albedo of the ring's particles (icy; invented for the scene).
 const PARTICLE_ALBEDO: f32 = 0.5;
-/// The unlit face's share of the lit face's luminance (common practice, no source).
-const UNLIT_SHARE: f32 = 0.1;
+/// The unlit face's share of the lit face's luminance: only the light the layer scatters
+/// forward comes through (invented for the scene, no source).
+const UNLIT_SHARE: f32 = 0.02;
 
 /// One drawn annulus.
 #[derive(Component)]
@@ -79,8 +87,11 @@ pub fn draw_ring(
         &mut RingBand,
         &mut Mesh3d,
         &MeshMaterial3d<StandardMaterial>,
+        &mut Transform,
     )>,
+    cameras: Query<&Transform, (With<Camera3d>, Without<RingBand>)>,
 ) {
+    let centre = cameras.iter().next().map_or(Vec3::ZERO, |t| t.translation);
     let (Some(planet), Some(ring)) = (world.planet(), sky.ring.as_ref().filter(|_| sky.ready))
     else {
         for (entity, ..) in &bands {
@@ -96,7 +107,8 @@ pub fn draw_ring(
         .illuminance_lux as f32;
     let [r, g, b] = sky.star.color.to_f32_array_no_alpha();
     let mut seen = Vec::new();
-    for (entity, mut band, mut mesh, material) in &mut bands {
+    for (entity, mut band, mut mesh, material, mut transform) in &mut bands {
+        transform.translation = centre;
         let Some(arc) = ring.arcs.iter().find(|a| a.annulus == band.annulus) else {
             commands.entity(entity).despawn();
             continue;
@@ -114,7 +126,8 @@ pub fn draw_ring(
         } else {
             UNLIT_SHARE * lit
         };
-        if let Some(m) = materials.get_mut(&material.0) {
+        if let Some(mut m) = materials.get_mut(&material.0) {
+            let l = l * DISPLAY_SCALE;
             m.emissive = LinearRgba::rgb(l * r, l * g, l * b);
         }
     }
@@ -122,9 +135,9 @@ pub fn draw_ring(
         if seen.contains(&arc.annulus) || arc.outer.is_empty() {
             continue;
         }
+        // Black and emissive (as the star field): the band's own light, in cd/m².
         let material = materials.add(StandardMaterial {
             base_color: Color::BLACK,
-            unlit: true,
             // Added to the sky behind it: a thin ring shows the stars through it.
             alpha_mode: AlphaMode::Add,
             cull_mode: None,
@@ -137,7 +150,7 @@ pub fn draw_ring(
             },
             Mesh3d(meshes.add(band_mesh(&arc.inner, &arc.outer))),
             MeshMaterial3d(material),
-            Transform::default(),
+            Transform::from_translation(centre),
             NotShadowCaster,
         ));
     }
