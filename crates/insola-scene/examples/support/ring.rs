@@ -75,6 +75,11 @@ fn band_mesh(inner: &[Vec3], outer: &[Vec3]) -> Mesh {
 }
 
 /// Builds, rebuilds and colours the ring's bands each frame from the sky state.
+#[allow(
+    clippy::too_many_arguments,
+    clippy::type_complexity,
+    reason = "a Bevy system's parameters are its data access"
+)]
 pub fn draw_ring(
     mut commands: Commands,
     world: Res<ActiveWorld>,
