@@ -34,7 +34,7 @@
 //!         .add_plugins(DefaultPlugins)
 //!         .add_plugins(InsolaPlugins::new().with_world_file("worlds/verdance.world.ron"))
 //!         .add_systems(Startup, |mut commands: Commands| {
-//!             commands.spawn((StarLight, DirectionalLight { shadow_maps_enabled: true, ..default() }));
+//!             commands.spawn((StarLight::PRIMARY, DirectionalLight { shadow_maps_enabled: true, ..default() }));
 //!             commands.spawn((Camera3d::default(), ExposureFollowsSky::default()));
 //!         })
 //!         .run();
