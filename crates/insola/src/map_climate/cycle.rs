@@ -12,6 +12,26 @@ use super::resample::CellSurface;
 use crate::climate::{AnnualForcing, ClimateSpec, DiurnalResponse};
 use crate::error::{QueryError, check_arg};
 
+/// Checks a time of year (finite) and a mean solar day (positive, finite), seconds: the
+/// arguments every instant-of-the-day query takes.
+pub(crate) fn check_year_and_day(year_fraction: f64, solar_day_s: f64) -> Result<(), QueryError> {
+    check_arg(
+        "year_fraction",
+        year_fraction,
+        f64::MIN,
+        f64::MAX,
+        "a finite number",
+    )?;
+    check_arg(
+        "solar_day_s",
+        solar_day_s,
+        f64::MIN_POSITIVE,
+        f64::MAX,
+        "greater than 0, finite",
+    )?;
+    Ok(())
+}
+
 /// The day-night layer added to a fast rotator's daily-mean cycle at one time of year.
 pub(crate) struct DiurnalLayer {
     response: DiurnalResponse,
@@ -296,13 +316,7 @@ impl MapClimate {
             f64::MAX,
             "a finite number",
         )?;
-        check_arg(
-            "solar_day_s",
-            solar_day_s,
-            f64::MIN_POSITIVE,
-            f64::MAX,
-            "greater than 0, finite",
-        )?;
+        check_year_and_day(year_fraction, solar_day_s)?;
         let Some(layer) = self.diurnal_layer(year_fraction, solar_day_s) else {
             return Ok(t);
         };

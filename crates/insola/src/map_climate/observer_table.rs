@@ -3,7 +3,7 @@
 
 use super::cycle::MapClimate;
 use crate::climate::{PlaceTable, SNAPSHOT_LATITUDES, Season};
-use crate::error::{QueryError, check_arg};
+use crate::error::QueryError;
 
 impl MapClimate {
     /// Local temperatures ([`MapClimate::local_temperature_c`]) on a [`PlaceTable`] at
@@ -24,20 +24,7 @@ impl MapClimate {
         solar_day_s: f64,
         seasons: [Season; SNAPSHOT_LATITUDES],
     ) -> Result<PlaceTable, QueryError> {
-        check_arg(
-            "year_fraction",
-            year_fraction,
-            f64::MIN,
-            f64::MAX,
-            "a finite number",
-        )?;
-        check_arg(
-            "solar_day_s",
-            solar_day_s,
-            f64::MIN_POSITIVE,
-            f64::MAX,
-            "greater than 0, finite",
-        )?;
+        super::cycle::check_year_and_day(year_fraction, solar_day_s)?;
         let (k0, k1, wt) = crate::climate::periodic_index(year_fraction, self.steps);
         let (a, b) = (self.temperatures_c(k0), self.temperatures_c(k1));
         let layer = self.diurnal_layer(year_fraction, solar_day_s);
