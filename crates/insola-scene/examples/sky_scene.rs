@@ -296,10 +296,11 @@ fn face_the_star(
     }
 }
 
-fn spawn_lights(mut commands: Commands) {
-    // The star: shadows over the whole place. The plugin sets direction, lux and colour.
-    commands.spawn((
-        StarLight::PRIMARY,
+/// A star's light: shadows over the whole place, a sun disc (the plugin sets direction, lux,
+/// colour and the disc's size).
+fn star_light(marker: StarLight) -> impl Bundle {
+    (
+        marker,
         DirectionalLight {
             shadow_maps_enabled: true,
             ..default()
@@ -312,24 +313,14 @@ fn spawn_lights(mut commands: Commands) {
             ..default()
         }
         .build(),
-    ));
+    )
+}
+
+fn spawn_lights(mut commands: Commands) {
+    commands.spawn(star_light(StarLight::PRIMARY));
     // A second sun, on worlds that have one (hidden otherwise). The plugin keeps the shadows on
     // whichever of the two suns is brighter.
-    commands.spawn((
-        StarLight::of(1),
-        DirectionalLight {
-            shadow_maps_enabled: true,
-            ..default()
-        },
-        SunDisk::EARTH,
-        CascadeShadowConfigBuilder {
-            num_cascades: 3,
-            first_cascade_far_bound: 32.0,
-            maximum_distance: 140.0,
-            ..default()
-        }
-        .build(),
-    ));
+    commands.spawn(star_light(StarLight::of(1)));
     // The two moons; the larger one casts shadows on moonlit nights.
     commands.spawn((
         MoonLight { moon: 0 },
