@@ -88,8 +88,17 @@ pub struct ActiveWorld {
     generation: u64,
     handle: Option<Handle<WorldFile>>,
     last_error: Option<String>,
+    /// The last reason reported from a world file and the real time of that report, s: Bevy
+    /// retries a failed reload once more, and under load that echo can arrive after a good
+    /// save has already replaced the world.
+    last_file_failure: Option<(String, f64)>,
     pending: Vec<PendingReport>,
 }
+
+/// Real seconds within which a failure repeating the last one reported from the file is taken
+/// for the asset server's retry of that same load, not news (common practice, no source: a
+/// retry follows within frames; nobody saves the same mistake twice in a second).
+const RETRY_ECHO_S: f64 = 2.0;
 
 #[derive(Debug)]
 enum PendingReport {
@@ -196,7 +205,9 @@ pub(crate) fn apply_world_files(
     mut failures: MessageReader<AssetLoadFailedEvent<WorldFile>>,
     files: Res<Assets<WorldFile>>,
     mut world: ResMut<ActiveWorld>,
+    real: Option<Res<Time<Real>>>,
 ) {
+    let now_s = real.map_or(0.0, |t| t.elapsed_secs_f64());
     let Some(id) = world.handle.as_ref().map(Handle::id) else {
         events.clear();
         failures.clear();
@@ -230,7 +241,12 @@ pub(crate) fn apply_world_files(
         let (reason, field) = load_failure(&failure.error);
         // When a reload fails, Bevy retries it as an untyped load, which fails the same way: a
         // failure that repeats the standing error is the same news and is not reported again.
-        if world.last_error.as_deref() != Some(reason.as_str()) {
+        let echo = world
+            .last_file_failure
+            .as_ref()
+            .is_some_and(|(last, at_s)| *last == reason && now_s - at_s < RETRY_ECHO_S);
+        if world.last_error.as_deref() != Some(reason.as_str()) && !echo {
+            world.last_file_failure = Some((reason.clone(), now_s));
             world.reject(failure.path.to_string(), reason, field);
         }
     }

@@ -14,6 +14,7 @@ pub mod error;
 pub mod events;
 pub mod frames;
 pub mod insolation;
+mod inverse_trig;
 mod leap_rules;
 pub mod light;
 pub mod lighting;
