@@ -18,8 +18,9 @@
 
 use std::f64::consts::{FRAC_PI_2, FRAC_PI_4, PI};
 
+use crate::lanes::Lanes;
+
 /// `g` of atan on `[0, tan²(π/8)]`, lowest degree first (error 6e-17 before rounding).
-#[allow(dead_code)] // for the time series
 const ATAN_G: [f64; 10] = [
     -0.3333333333333325,
     0.19999999999898407,
@@ -50,30 +51,27 @@ const ASIN_G: [f64; 12] = [
 ];
 
 /// tan(π/8) = √2 − 1.
-#[allow(dead_code)]
 const TAN_PI_8: f64 = std::f64::consts::SQRT_2 - 1.0;
 
 /// A polynomial by Estrin's scheme, lowest coefficient first in `c`: pairs `c₀ + c₁x`, then
 /// pairs of pairs with `x²`, `x⁴`, … — a dependency chain of depth log₂ N instead of Horner's
 /// N, which is what a vector loop waits on.
 #[inline(always)]
-fn estrin<const N: usize>(x: f64, c: &[f64; N]) -> f64 {
-    let mut terms = [0.0; N];
+fn estrin<T: Lanes, const N: usize>(x: T, c: &[f64; N]) -> T {
+    let mut terms = c.map(T::splat);
     let mut len = N;
-    terms.copy_from_slice(c);
     let mut power = x;
     while len > 1 {
         let half = len.div_ceil(2);
         for i in 0..half {
-            let hi = if 2 * i + 1 < len {
-                terms[2 * i + 1]
+            terms[i] = if 2 * i + 1 < len {
+                terms[2 * i] + terms[2 * i + 1] * power
             } else {
-                0.0
+                terms[2 * i]
             };
-            terms[i] = terms[2 * i] + hi * power;
         }
         len = half;
-        power *= power;
+        power = power * power;
     }
     terms[0]
 }
@@ -81,20 +79,20 @@ fn estrin<const N: usize>(x: f64, c: &[f64; N]) -> f64 {
 /// The angle of `(x, y)` from the +x axis, radians in `[−π, π]`, as `f64::atan2` (signed zeros
 /// included; `(0, 0)` gives ±0 or ±π by the signs, as the library does).
 #[inline(always)]
-#[allow(dead_code)]
-pub(crate) fn atan2(y: f64, x: f64) -> f64 {
+pub(crate) fn atan2<T: Lanes>(y: T, x: T) -> T {
     let (ax, ay) = (x.abs(), y.abs());
     let (mn, mx) = (ax.min(ay), ax.max(ay));
-    let high = mn > TAN_PI_8 * mx;
-    let num = if high { mn - mx } else { mn };
-    let den = if high { mn + mx } else { mx };
-    let u = if den > 0.0 { num / den } else { 0.0 };
+    let high = mn.gt(T::splat(TAN_PI_8) * mx);
+    let num = T::select(high, mn - mx, mn);
+    let den = T::select(high, mn + mx, mx);
+    let zero = T::splat(0.0);
+    let u = T::select(den.gt(zero), num / den, zero);
     let w = u * u;
     let mut r = u + u * w * estrin(w, &ATAN_G);
-    r += if high { FRAC_PI_4 } else { 0.0 };
-    r = if ay > ax { FRAC_PI_2 - r } else { r };
-    r = if x.is_sign_negative() { PI - r } else { r };
-    if y.is_sign_negative() { -r } else { r }
+    r = r + T::select(high, T::splat(FRAC_PI_4), zero);
+    r = T::select(ay.gt(ax), T::splat(FRAC_PI_2) - r, r);
+    r = T::select(x.sign_negative(), T::splat(PI) - r, r);
+    T::select(y.sign_negative(), -r, r)
 }
 
 /// `acos x`, radians in `[0, π]`, for `x ∈ [−1, 1]` (NaN outside, as the library).
@@ -106,7 +104,7 @@ pub(crate) fn acos(x: f64) -> f64 {
     let root = z.sqrt();
     let s = if high { root } else { a };
     // asin(s), s ∈ [0, 1/2].
-    let p = s + s * z * estrin(z, &ASIN_G);
+    let p = s + s * z * estrin::<f64, 12>(z, &ASIN_G);
     // acos |x|.
     let r = if high { 2.0 * p } else { FRAC_PI_2 - p };
     if x < 0.0 { PI - r } else { r }
@@ -134,7 +132,7 @@ mod tests {
             let scale = 10f64.powf(40.0 * uniform(&mut seed) - 20.0);
             let y = (2.0 * uniform(&mut seed) - 1.0) * scale;
             let x = (2.0 * uniform(&mut seed) - 1.0) * 10f64.powf(4.0 * uniform(&mut seed) - 2.0);
-            worst = worst.max((atan2(y, x) - y.atan2(x)).abs());
+            worst = worst.max((atan2::<f64>(y, x) - y.atan2(x)).abs());
         }
         assert!(worst < 1e-15, "worst {worst:e}");
         // The octant edges, the axes and signed zeros exactly as the library.
@@ -152,7 +150,7 @@ mod tests {
             (0.0, -0.0),
             (-0.0, -0.0),
         ] {
-            let (ours, lib) = (atan2(y, x), f64::atan2(y, x));
+            let (ours, lib) = (atan2::<f64>(y, x), f64::atan2(y, x));
             assert!((ours - lib).abs() < 1e-15, "({y}, {x}): {ours} vs {lib}");
             assert_eq!(
                 ours.is_sign_negative(),

@@ -15,6 +15,7 @@ pub mod events;
 pub mod frames;
 pub mod insolation;
 mod inverse_trig;
+mod lanes;
 mod leap_rules;
 pub mod light;
 pub mod lighting;

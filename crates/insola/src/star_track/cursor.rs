@@ -23,9 +23,14 @@
 use glam::DVec3;
 
 use crate::angle::{wrap_pi, wrap_tau};
+use crate::lanes::Lanes;
 use crate::orbit::solve_kepler_sin_cos;
 use crate::planet::Planet;
 use crate::sky::{PreparedPlace, StarPosition};
+
+mod even_lanes;
+
+pub(crate) use even_lanes::LANES;
 
 /// Samples per block: the first is anchored on the scalar formulas.
 pub(crate) const ANCHOR_EVERY: usize = 64;
@@ -44,8 +49,8 @@ const MAX_NEWTON_STEP_RAD: f64 = 1e-7;
 /// Sine and cosine of a small angle (`|x| ≤ 0.05`) by their Taylor series to x⁹ and x¹⁰ (the
 /// next terms are below 1e-21 there). Coefficients as products, not divisions: a division
 /// costs ten multiplications.
-#[inline]
-fn small_sin_cos(x: f64) -> (f64, f64) {
+#[inline(always)]
+fn small_sin_cos<T: Lanes>(x: T) -> (T, T) {
     const S: [f64; 4] = [-1.0 / 6.0, 1.0 / 120.0, -1.0 / 5040.0, 1.0 / 362_880.0];
     const C: [f64; 5] = [
         -0.5,
@@ -54,23 +59,26 @@ fn small_sin_cos(x: f64) -> (f64, f64) {
         1.0 / 40_320.0,
         -1.0 / 3_628_800.0,
     ];
+    let k = T::splat;
     let x2 = x * x;
-    let s = x + x * x2 * (S[0] + x2 * (S[1] + x2 * (S[2] + x2 * S[3])));
-    let c = 1.0 + x2 * (C[0] + x2 * (C[1] + x2 * (C[2] + x2 * (C[3] + x2 * C[4]))));
+    let s = x + x * x2 * (k(S[0]) + x2 * (k(S[1]) + x2 * (k(S[2]) + x2 * k(S[3]))));
+    let c =
+        k(1.0) + x2 * (k(C[0]) + x2 * (k(C[1]) + x2 * (k(C[2]) + x2 * (k(C[3]) + x2 * k(C[4])))));
     (s, c)
 }
 
 /// Turns `(sin a, cos a)` by the angle of `(sin b, cos b)`: the angle-sum rule.
-#[inline]
-fn turn((s, c): (f64, f64), (sb, cb): (f64, f64)) -> (f64, f64) {
+#[inline(always)]
+fn turn<T: Lanes>((s, c): (T, T), (sb, cb): (T, T)) -> (T, T) {
     (s * cb + c * sb, c * cb - s * sb)
 }
 
 /// `atan(u)` for `|u| ≤ 0.01` by its series to u⁹.
-#[inline]
-fn small_atan(u: f64) -> f64 {
+#[inline(always)]
+fn small_atan<T: Lanes>(u: T) -> T {
+    let k = T::splat;
     let u2 = u * u;
-    u * (1.0 - u2 * (1.0 / 3.0 - u2 * (1.0 / 5.0 - u2 * (1.0 / 7.0 - u2 / 9.0))))
+    u * (k(1.0) - u2 * (k(1.0 / 3.0) - u2 * (k(1.0 / 5.0) - u2 * (k(1.0 / 7.0) - u2 / k(9.0)))))
 }
 
 /// One sample before its angles are formed.

@@ -23,7 +23,7 @@ mod cursor;
 use crate::error::QueryError;
 use crate::planet::Planet;
 use crate::sky::{Place, PreparedPlace, StarPosition};
-use cursor::{ANCHOR_EVERY, Cursor};
+use cursor::{ANCHOR_EVERY, Cursor, LANES};
 
 /// Samples per parallel work item: a whole number of anchor blocks, large enough that
 /// scheduling costs vanish.
@@ -208,13 +208,25 @@ impl Planet {
         first: usize,
         out: &mut [StarPosition],
     ) {
-        let mut cursor = Cursor::new(self, place, times.step_s());
-        for (j, o) in out.iter_mut().enumerate() {
-            let k = first + j;
-            let t = times.time_s(k);
-            let raw = cursor.sample::<true>(t, k % ANCHOR_EVERY);
-            *o = cursor.position(raw);
+        #[cfg(target_arch = "x86_64")]
+        if std::arch::is_x86_feature_detected!("avx512f") {
+            // SAFETY: the processor has just been seen to support AVX-512F.
+            #[allow(unsafe_code)]
+            unsafe {
+                positions_avx512(self, place, times, first, out)
+            };
+            return;
         }
+        #[cfg(target_arch = "x86_64")]
+        if std::arch::is_x86_feature_detected!("avx2") {
+            // SAFETY: the processor has just been seen to support AVX2.
+            #[allow(unsafe_code)]
+            unsafe {
+                positions_avx2(self, place, times, first, out)
+            };
+            return;
+        }
+        positions(self, place, times, first, out);
     }
 
     /// [`Planet::positions_block`] for the insolation alone.
@@ -230,6 +242,77 @@ impl Planet {
             let k = first + j;
             let raw = cursor.sample::<false>(times.time_s(k), k % ANCHOR_EVERY);
             *o = raw.toa_flux_w_m2 * raw.enu.z.max(0.0);
+        }
+    }
+}
+
+/// [`positions`] compiled for 512-bit vector lanes. Without fused multiply-adds (not enabled),
+/// each lane rounds as the plain build does: the same numbers bit for bit.
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx512f")]
+fn positions_avx512(
+    planet: &Planet,
+    place: PreparedPlace,
+    times: &TrackTimes<'_>,
+    first: usize,
+    out: &mut [StarPosition],
+) {
+    positions(planet, place, times, first, out);
+}
+
+/// [`positions`] compiled for 256-bit vector lanes (the same numbers, as above).
+#[cfg(target_arch = "x86_64")]
+#[target_feature(enable = "avx2")]
+fn positions_avx2(
+    planet: &Planet,
+    place: PreparedPlace,
+    times: &TrackTimes<'_>,
+    first: usize,
+    out: &mut [StarPosition],
+) {
+    positions(planet, place, times, first, out);
+}
+
+/// Samples `first …` into `out`: evenly spaced samples after each block's anchor [`LANES`] at
+/// a time (`cursor::even_lanes`), anchors, given instants and lanes the series cannot take one
+/// by one.
+#[inline(always)]
+fn positions(
+    planet: &Planet,
+    place: PreparedPlace,
+    times: &TrackTimes<'_>,
+    first: usize,
+    out: &mut [StarPosition],
+) {
+    let mut cursor = Cursor::new(planet, place, times.step_s());
+    let even = times.step_s().is_some();
+    let mut j = 0;
+    while j < out.len() {
+        let k = first + j;
+        let in_block = k % ANCHOR_EVERY;
+        let left_in_block = (ANCHOR_EVERY - in_block).min(out.len() - j);
+        // A group of lanes ending where this run of the block ends; it starts earlier (lanes
+        // already written, computed again to the same numbers) when fewer are left.
+        let back = LANES.saturating_sub(left_in_block);
+        if even && in_block > back && j >= back {
+            let start = in_block - back;
+            let mut group = [out[j]; LANES];
+            let mut ok = [false; LANES];
+            cursor.even_lanes(start, &mut group, &mut ok);
+            let taken = LANES - back;
+            for lane in back..LANES {
+                out[j + lane - back] = if ok[lane] {
+                    group[lane]
+                } else {
+                    let raw = cursor.sample::<true>(times.time_s(k + lane - back), start + lane);
+                    cursor.position(raw)
+                };
+            }
+            j += taken;
+        } else {
+            let raw = cursor.sample::<true>(times.time_s(k), in_block);
+            out[j] = cursor.position(raw);
+            j += 1;
         }
     }
 }
