@@ -104,21 +104,21 @@ pub fn draw_ring(
         }
         return;
     };
-    let annuli = planet.ring().map(|r| r.annuli.clone()).unwrap_or_default();
+    // Borrowed, not copied: this runs every frame and allocates nothing (a mesh is built only
+    // when an annulus first shows or its arc moves, i.e. when the world or the place changes).
+    let annuli = planet.ring().map_or(&[][..], |r| &r.annuli[..]);
     let instant = planet.star_instant(clock.world_time_s());
     let star_lux = planet
         .light_model()
         .top_of_atmosphere(instant.toa_flux_w_m2)
         .illuminance_lux as f32;
     let [r, g, b] = sky.star.color.to_f32_array_no_alpha();
-    let mut seen = Vec::new();
     for (entity, mut band, mut mesh, material, mut transform) in &mut bands {
         transform.translation = centre;
         let Some(arc) = ring.arcs.iter().find(|a| a.annulus == band.annulus) else {
             commands.entity(entity).despawn();
             continue;
         };
-        seen.push(band.annulus);
         let key = (arc.outer[0], *arc.outer.last().unwrap_or(&arc.outer[0]));
         if key != band.built_from {
             mesh.0 = meshes.add(band_mesh(&arc.inner, &arc.outer));
@@ -131,13 +131,22 @@ pub fn draw_ring(
         } else {
             UNLIT_SHARE * lit
         };
-        if let Some(mut m) = materials.get_mut(&material.0) {
-            let l = l * DISPLAY_SCALE;
-            m.emissive = LinearRgba::rgb(l * r, l * g, l * b);
+        let l = l * DISPLAY_SCALE;
+        let emissive = LinearRgba::rgb(l * r, l * g, l * b);
+        // Touched only when the colour changes, so an unchanged material is not sent to the
+        // GPU again.
+        if materials
+            .get(&material.0)
+            .is_some_and(|m| m.emissive != emissive)
+            && let Some(mut m) = materials.get_mut(&material.0)
+        {
+            m.emissive = emissive;
         }
     }
     for arc in &ring.arcs {
-        if seen.contains(&arc.annulus) || arc.outer.is_empty() {
+        // Bands already drawn (the query still holds those despawned above, but only for
+        // annuli no longer in the arcs, which this loop does not visit).
+        if arc.outer.is_empty() || bands.iter().any(|(_, b, ..)| b.annulus == arc.annulus) {
             continue;
         }
         // Black and emissive (as the star field): the band's own light, in cd/m².
