@@ -65,7 +65,7 @@ fn the_kept_arcs_follow_the_place_and_equal_a_fresh_computation() {
     // reference place moves or someone writes into the sky state.
     let planet = planet(THALCARY);
     let mut app = app(THALCARY, settings_at(30.0, 0.0), 3600.0, FRAME);
-    let fresh = |app: &App| {
+    let fresh = |app: &bevy::prelude::App| {
         let settings = app.world().resource::<InsolaSettings>();
         let t = app.world().resource::<SkyState>().world_time_s;
         SkyState::compute(&planet, t, settings).ring.unwrap()
