@@ -14,8 +14,8 @@ use bevy::asset::RenderAssetUsages;
 use bevy::light::NotShadowCaster;
 use bevy::mesh::{Indices, PrimitiveTopology};
 use bevy::prelude::*;
-use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
+use bevy_insola::{ActiveWorld, SkyRingArc};
 
 /// Radius of the ring's sphere around the camera, m. Near, because the engine's atmosphere
 /// adds the glow of the air between the camera and anything drawn (at 700 m, the star field's
@@ -38,6 +38,13 @@ pub struct RingBand {
     annulus: usize,
     /// The arc the mesh was built from (first and last outer points), to rebuild on change.
     built_from: (Vec3, Vec3),
+}
+
+/// What a band's mesh is rebuilt on: the first and last points of its outer edge (the arcs of
+/// the plugin's sky state are non-empty).
+fn arc_key(arc: &SkyRingArc) -> (Vec3, Vec3) {
+    let first = arc.outer.first().copied().unwrap_or_default();
+    (first, arc.outer.last().copied().unwrap_or(first))
 }
 
 /// A band mesh between two edges (each a list of unit directions; the inner edge falls back to
@@ -119,7 +126,7 @@ pub fn draw_ring(
             commands.entity(entity).despawn();
             continue;
         };
-        let key = (arc.outer[0], *arc.outer.last().unwrap_or(&arc.outer[0]));
+        let key = arc_key(arc);
         if key != band.built_from {
             mesh.0 = meshes.add(band_mesh(&arc.inner, &arc.outer));
             band.built_from = key;
@@ -160,7 +167,8 @@ pub fn draw_ring(
         commands.spawn((
             RingBand {
                 annulus: arc.annulus,
-                built_from: (Vec3::ZERO, Vec3::ZERO),
+                // The arc it is built from now, so the next frame does not build it again.
+                built_from: arc_key(arc),
             },
             Mesh3d(meshes.add(band_mesh(&arc.inner, &arc.outer))),
             MeshMaterial3d(material),
