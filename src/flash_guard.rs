@@ -20,9 +20,11 @@
 //!   reference place (star light with the day's mean horizontal illuminance, from where the star
 //!   stands highest that day; the sky light's mean), constant through the day;
 //! - the year faster as well: the **mean of the year** (constant);
-//! - moons, and on a world of two suns the second star, are not shown while the day is held
-//!   (their light would come and go with their own cycles): the held sky is the primary star's
-//!   and the sky's.
+//! - moons are not shown while the day is held (their light would come and go with their own
+//!   cycles); on a world of two suns the second star is held at its own mean over the same
+//!   instants, as the primary is (from where it stood highest, with its mean horizontal
+//!   light), so both lights stand still through a held day and the held ground light (which
+//!   already counted the second star) is what the lights show.
 //!
 //! A cycle shown exactly lasts at least the limit, so it flashes at most once a second however
 //! the frames fall; a held cycle does not flash at all. Only what is displayed changes: the
@@ -93,7 +95,8 @@ pub struct DisplayedSky {
     pub star: SceneBody,
     /// Each moon's light as shown (all down while a cycle is held).
     pub moons: Vec<SceneBody>,
-    /// Each star after the primary as shown, by index from 1 (down while a cycle is held).
+    /// Each star after the primary as shown, by index from 1 (at its mean while a cycle is
+    /// held).
     pub other_stars: Vec<SceneBody>,
     /// Diffuse light of the sky on a horizontal surface, lux.
     pub sky_illuminance_lux: f64,
@@ -145,7 +148,7 @@ impl FlashGuard {
 }
 
 /// The mean of the sky over `times` at `place` (the core's [`Planet::mean_lighting`]), as
-/// displayed: moons down.
+/// displayed: moons down, every star at its mean.
 fn mean_sky(
     planet: &Planet,
     place: Place,
@@ -167,9 +170,13 @@ fn mean_sky(
             .iter()
             .map(|m| SceneBody::from_core(m, compass))
             .collect(),
-        // Down: the mean is the primary's (see the module docs).
+        // By index from 1; a star missing from the mean (none on a shipped world) is down.
         other_stars: (1..planet.star_count())
-            .map(|_| SceneBody::default())
+            .map(|k| {
+                mean.other_stars
+                    .get(k - 1)
+                    .map_or_else(SceneBody::default, |b| SceneBody::from_core(b, compass))
+            })
             .collect(),
         sky_illuminance_lux: mean.sky.illuminance_lux,
         sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),

@@ -115,7 +115,7 @@ pub struct SkyRingArc {
 }
 
 /// The ring seen from the reference place: the arc of each annulus, which face is lit, and its
-/// shadow here (from the core's [`Planet::ring_view`]).
+/// shadow here (the core's [`Planet::ring_arcs`], kept per place, and [`Planet::ring_moment`]).
 #[derive(Debug, Clone, PartialEq, Default, Reflect)]
 #[reflect(Debug, PartialEq, Default, Clone)]
 pub struct SkyRing {
@@ -132,15 +132,38 @@ pub struct SkyRing {
 }
 
 impl SkyRing {
-    fn from_core(view: &insola::rings::RingView, compass: &SceneCompass) -> SkyRing {
+    /// The ring at `moment`, around arcs already in scene axes.
+    fn at(arcs: SceneRingArcs, moment: &insola::rings::RingMoment) -> SkyRing {
+        SkyRing {
+            sees_lit_face: arcs.core_face == moment.lit_face
+                && moment.lit_face != insola::rings::RingFace::EdgeOn,
+            arcs: arcs.arcs,
+            shadow_transmission: moment.shadow.transmission,
+            shadow_annulus: moment.shadow.annulus,
+        }
+    }
+}
+
+/// The ring's arcs at one place in scene axes, with the face the place sees: the part of
+/// [`SkyRing`] that depends on the world, the place and the compass only (the core's
+/// [`insola::rings::RingArcs`]), so the frame's system keeps it instead of recomputing a few
+/// hundred sampled directions every frame.
+#[derive(Debug, Clone, PartialEq)]
+pub(crate) struct SceneRingArcs {
+    arcs: Vec<SkyRingArc>,
+    core_face: insola::rings::RingFace,
+}
+
+impl SceneRingArcs {
+    fn from_core(arcs: &insola::rings::RingArcs, compass: &SceneCompass) -> SceneRingArcs {
         let to_scene = |points: &[insola::rings::RingEdgePoint]| {
             points
                 .iter()
                 .map(|p| compass.to_scene(p.direction_enu).normalize_or_zero())
                 .collect()
         };
-        SkyRing {
-            arcs: view
+        SceneRingArcs {
+            arcs: arcs
                 .arcs
                 .iter()
                 .map(|a| SkyRingArc {
@@ -149,10 +172,15 @@ impl SkyRing {
                     outer: to_scene(&a.outer),
                 })
                 .collect(),
-            sees_lit_face: view.sees_lit_face(),
-            shadow_transmission: view.shadow.transmission,
-            shadow_annulus: view.shadow.annulus,
+            core_face: arcs.seen_face,
         }
+    }
+
+    /// The arcs of `place`'s sky on `planet` (`None` on worlds without a ring).
+    fn of(planet: &Planet, place: Place, compass: &SceneCompass) -> Option<SceneRingArcs> {
+        planet
+            .ring_arcs(place)
+            .map(|a| SceneRingArcs::from_core(&a, compass))
     }
 }
 
@@ -260,6 +288,20 @@ impl SkyState {
     /// Computes the sky state from the core for `t_s` and the settings' reference place.
     pub fn compute(planet: &Planet, t_s: f64, settings: &InsolaSettings) -> SkyState {
         let place = settings.reference_place_clamped();
+        let arcs = SceneRingArcs::of(planet, place, &settings.compass);
+        SkyState::compute_around(planet, t_s, settings, arcs)
+    }
+
+    /// [`SkyState::compute`] around the ring's arcs for the settings' reference place and
+    /// compass, already computed ([`SceneRingArcs::of`]); only the ring's lit face and shadow
+    /// are this instant's.
+    fn compute_around(
+        planet: &Planet,
+        t_s: f64,
+        settings: &InsolaSettings,
+        ring_arcs: Option<SceneRingArcs>,
+    ) -> SkyState {
+        let place = settings.reference_place_clamped();
         let lighting = planet.lighting(t_s, place, settings.attenuation.light_mode());
         let compass = &settings.compass;
         let star = SceneBody::from_core(&lighting.star, compass);
@@ -288,7 +330,9 @@ impl SkyState {
         // the air (the engine's atmosphere then dims them on their way to the scene).
         let horizontal = lighting.ground_horizontal_illuminance_lux;
         let date = planet.date_at(t_s);
-        let ecliptic_longitude = planet.star_instant(t_s).ecliptic_longitude_rad;
+        let instant = planet.star_instant(t_s);
+        let ecliptic_longitude = instant.ecliptic_longitude_rad;
+        let ring = ring_arcs.zip(planet.ring_moment(&instant, place));
         let [r, g, b] = lighting.sky.colour_linear_srgb;
         SkyState {
             ready: true,
@@ -296,9 +340,7 @@ impl SkyState {
             star,
             star_eclipse_fraction: lighting.star_eclipse_fraction,
             other_stars,
-            ring: planet
-                .ring_view(t_s, place)
-                .map(|v| SkyRing::from_core(&v, compass)),
+            ring: ring.map(|(arcs, moment)| SkyRing::at(arcs, &moment)),
             toa_insolation_w_m2: lighting.toa_insolation_w_m2,
             sky_illuminance_lux: lighting.sky.illuminance_lux,
             sky_color: LinearRgba::rgb(r as f32, g as f32, b as f32),
@@ -345,6 +387,14 @@ pub(crate) struct TodayKey {
     events: Option<DayEvents>,
 }
 
+/// The ring's arcs in the reference place's sky, kept while the world, the place and the
+/// compass stay (they do not change with time; see [`SceneRingArcs`]).
+#[derive(Default)]
+pub(crate) struct RingArcsKey {
+    key: Option<(u64, [u64; 2], SceneCompass)>,
+    arcs: Option<SceneRingArcs>,
+}
+
 /// Recomputes [`SkyState`] for this frame's instant.
 pub(crate) fn compute_sky_state(
     world: Res<ActiveWorld>,
@@ -352,12 +402,31 @@ pub(crate) fn compute_sky_state(
     settings: Res<InsolaSettings>,
     mut sky: ResMut<SkyState>,
     mut today: Local<TodayKey>,
+    mut ring_arcs: Local<RingArcsKey>,
 ) {
     let Some(planet) = world.planet() else {
         return;
     };
-    let mut state = SkyState::compute(planet, clock.world_time_s(), &settings);
     let place = settings.reference_place_clamped();
+    let ring_key = (
+        world.generation(),
+        [place.latitude_rad.to_bits(), place.longitude_rad.to_bits()],
+        settings.compass,
+    );
+    if ring_arcs.key != Some(ring_key) {
+        ring_arcs.arcs = SceneRingArcs::of(planet, place, &settings.compass);
+        ring_arcs.key = Some(ring_key);
+    }
+    // Last frame's arcs, if they are still the kept ones, are moved into this frame's state
+    // instead of copied (nothing allocated for the ring from frame to frame).
+    let arcs = ring_arcs.arcs.as_ref().map(|kept| match sky.ring.take() {
+        Some(last) if last.arcs == kept.arcs => SceneRingArcs {
+            arcs: last.arcs,
+            core_face: kept.core_face,
+        },
+        _ => kept.clone(),
+    });
+    let mut state = SkyState::compute_around(planet, clock.world_time_s(), &settings, arcs);
     let key = (
         world.generation(),
         state.local_day,

@@ -19,6 +19,11 @@ const RUN_S: f64 = 3.0;
 /// An app on Brindle (20-hour day, 200-day year) at `rate` and `fps`, with a star light and a
 /// camera whose exposure follows the sky, as the examples set them.
 fn lit_app(rate: f64, fps: f64, guard: FlashGuard) -> App {
+    lit_app_on(BRINDLE, rate, fps, guard)
+}
+
+/// [`lit_app`] on `world`, with a light for each of its stars.
+fn lit_app_on(world: &str, rate: f64, fps: f64, guard: FlashGuard) -> App {
     let settings = InsolaSettings {
         flash_guard: guard,
         // Notices are not under test; long frames skip them.
@@ -29,7 +34,7 @@ fn lit_app(rate: f64, fps: f64, guard: FlashGuard) -> App {
     app.add_plugins(MinimalPlugins)
         .add_plugins(
             InsolaPlugins::new()
-                .with_world_spec(spec(BRINDLE))
+                .with_world_spec(spec(world))
                 .with_settings(settings)
                 .with_clock_rate(rate)
                 .build()
@@ -39,7 +44,10 @@ fn lit_app(rate: f64, fps: f64, guard: FlashGuard) -> App {
         .insert_resource(TimeUpdateStrategy::ManualDuration(Duration::from_secs_f64(
             1.0 / fps,
         )));
-    app.world_mut().spawn(StarLight::PRIMARY);
+    let stars = planet(world).star_count();
+    for k in 0..stars {
+        app.world_mut().spawn(StarLight::of(k));
+    }
     app.world_mut()
         .spawn((ExposureFollowsSky::default(), Exposure::default()));
     app
@@ -110,7 +118,11 @@ fn most_flashes_per_second(changes: &[f64]) -> usize {
 }
 
 fn run(rate: f64, fps: f64, guard: FlashGuard) -> usize {
-    let mut app = lit_app(rate, fps, guard);
+    run_on(BRINDLE, rate, fps, guard)
+}
+
+fn run_on(world: &str, rate: f64, fps: f64, guard: FlashGuard) -> usize {
+    let mut app = lit_app_on(world, rate, fps, guard);
     let frames = (RUN_S * fps) as usize;
     let mut series = Vec::with_capacity(frames);
     for i in 0..frames {
@@ -164,4 +176,50 @@ fn at_ordinary_rates_the_displayed_sky_is_the_exact_one() {
         min_real_period_s: 0.01,
     };
     assert_eq!(loose.hold_for(72_000.0, 1.44e7, 3.0e5), SkyHold::Day);
+}
+
+#[test]
+fn with_two_suns_both_lights_are_held_and_nothing_flashes() {
+    use crate::two_suns::TESSALY;
+    // Every star's light counts in what the camera shows (`shown_luminance` sums the star
+    // lights), so the companion held at its mean must not flash either.
+    for rate in [1e5, 1e6, 1e8] {
+        for fps in [30.0, 144.0] {
+            let flashes = run_on(TESSALY, rate, fps, FlashGuard::default());
+            assert!(
+                flashes <= 3,
+                "rate {rate:e} at {fps} Hz: {flashes} flashes in one second"
+            );
+        }
+    }
+    // Tessaly's 24-hour day passes in under a real second at 1e5: the day is held, the
+    // companion shown at its mean, lit (it stands beside the primary, so it is up in the
+    // day), and unchanged within one local day.
+    let mut app = lit_app_on(TESSALY, 1e5, 60.0, FlashGuard::default());
+    let mut held: Option<(i64, DisplayedSky)> = None;
+    let mut days_checked = 0;
+    for _ in 0..200 {
+        app.update();
+        let shown = app.world().resource::<DisplayedSky>().clone();
+        let day = app.world().resource::<SkyState>().local_day;
+        assert_eq!(shown.hold, SkyHold::Day);
+        assert_eq!(shown.other_stars.len(), 1);
+        let companion = shown.other_stars[0];
+        assert!(
+            companion.is_up && companion.illuminance_lux > 0.0,
+            "{companion:?}"
+        );
+        match &held {
+            Some((d, before)) if *d == day => assert_eq!(*before, shown),
+            _ => {
+                days_checked += 1;
+                held = Some((day, shown));
+            }
+        }
+    }
+    assert!(days_checked >= 3);
+    // Its light is on while held.
+    let world = app.world_mut();
+    let mut q = world.query::<(&StarLight, &Visibility)>();
+    assert!(q.iter(world).all(|(_, v)| *v != Visibility::Hidden));
 }

@@ -27,12 +27,10 @@ fn one_continent() -> ClimateSurface {
 fn wait_for_map(app: &mut App) {
     for _ in 0..4000 {
         app.update();
-        if app
-            .world()
-            .resource::<SeasonalClimate>()
-            .map_model()
-            .is_some()
-        {
+        // Both models: the map and the zonal one are built apart, and the queries below need
+        // the zonal model's time of year too (the map could come first).
+        let climate = app.world().resource::<SeasonalClimate>();
+        if climate.map_model().is_some() && climate.is_ready() {
             app.update();
             return;
         }

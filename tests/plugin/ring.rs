@@ -57,3 +57,45 @@ fn the_sky_state_carries_the_ring_and_its_shadow() {
         "no ring shadow seen at 30° N over half a year"
     );
 }
+
+#[test]
+fn the_kept_arcs_follow_the_place_and_equal_a_fresh_computation() {
+    // The frame's system keeps the ring's arcs between frames (they do not change with
+    // time); what it shows must be what `SkyState::compute` gives from nothing, also after the
+    // reference place moves or someone writes into the sky state.
+    let planet = planet(THALCARY);
+    let mut app = app(THALCARY, settings_at(30.0, 0.0), 3600.0, FRAME);
+    let fresh = |app: &bevy::prelude::App| {
+        let settings = app.world().resource::<InsolaSettings>();
+        let t = app.world().resource::<SkyState>().world_time_s;
+        SkyState::compute(&planet, t, settings).ring.unwrap()
+    };
+    for frame in 0..40 {
+        if frame == 10 {
+            app.world_mut()
+                .resource_mut::<InsolaSettings>()
+                .reference_latitude_deg = -42.0;
+        }
+        if frame == 20 {
+            // A scene writing into the sky state gets this frame's arcs back next frame.
+            app.world_mut()
+                .resource_mut::<SkyState>()
+                .ring
+                .as_mut()
+                .unwrap()
+                .arcs
+                .clear();
+        }
+        app.update();
+        let shown = app.world().resource::<SkyState>().ring.clone().unwrap();
+        let expected = fresh(&app);
+        assert!(!shown.arcs.is_empty());
+        assert_eq!(shown, expected, "frame {frame}");
+    }
+    // The arcs are those of 42° S now: the highest point of the outer edge is toward the
+    // north (toward the equator), so the scene's north component is positive there.
+    let shown = app.world().resource::<SkyState>().ring.clone().unwrap();
+    let north = app.world().resource::<InsolaSettings>().compass.north();
+    let top = shown.arcs[0].outer[shown.arcs[0].outer.len() / 2];
+    assert!(top.dot(north) > 0.0, "{top:?}");
+}

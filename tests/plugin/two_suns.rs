@@ -12,7 +12,7 @@ const FRAME: Duration = Duration::from_millis(16);
 
 /// Tessaly: an invented circumbinary world, a yellow star and an orange one (invented numbers,
 /// stable by the Holman–Wiegert limit the core checks).
-const TESSALY: &str = r#"(
+pub(crate) const TESSALY: &str = r#"(
     name: "Tessaly",
     star: (temperature_k: 5800, radius_r_sun: 1.0, luminosity_l_sun: 1.0, mass_m_sun: 1.0),
     orbit: (semi_major_axis_au: 1.1, eccentricity: 0.01, periapsis_longitude_deg: 0, period_days: 323.2),

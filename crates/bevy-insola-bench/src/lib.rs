@@ -71,6 +71,49 @@ pub fn insola_scene_app() -> App {
     app
 }
 
+/// The built-in two-sun world Ambrivane with the built-in ringed world Thalcary's ring added:
+/// a world with both a companion star and a ring, for the per-frame row's second case. The
+/// ring's inner edge (9,500 km) lies outside Ambrivane's default radius, and the whole spec is
+/// validated here so the bench measures a world the plugin accepts.
+pub fn two_suns_and_a_ring() -> WorldSpec {
+    let world = |name: &str| {
+        insola::built_in_worlds::built_in_world(name)
+            .expect("the world ships with the core")
+            .spec()
+            .expect("a shipped world is valid")
+    };
+    let mut spec = world("ambrivane");
+    spec.name = "Ambrivane with Thalcary's ring (bench)".to_string();
+    spec.ring = world("thalcary").ring;
+    spec.validate()
+        .expect("Ambrivane with Thalcary's ring is a valid world");
+    spec
+}
+
+/// The measured app of the two-suns-and-a-ring row: the plugin on [`two_suns_and_a_ring`]
+/// driving a light for each star (`StarLight::PRIMARY`, `StarLight::of(1)`), the ambient
+/// light and the climate, and one observer, at a reference place in the southern hemisphere
+/// where the ring's shadow falls while the stars stand north of the ring plane; run until the
+/// climate is ready, as [`insola_scene_app`].
+pub fn two_suns_ring_app() -> App {
+    let mut app = bare_app();
+    app.add_plugins(
+        InsolaPlugins::new()
+            .with_world_spec(two_suns_and_a_ring())
+            .with_reference_place(-25.0, 0.0)
+            .with_clock_rate(CLOCK_RATE),
+    );
+    app.world_mut().spawn(StarLight::PRIMARY);
+    app.world_mut().spawn(StarLight::of(1));
+    app.world_mut()
+        .spawn(SurfacePlace::from_degrees(-25.0, 12.0).expect("valid place"));
+    wait_for_climate(&mut app);
+    // The row measures both extras: make sure the sky has them.
+    let sky = app.world().resource::<SkyState>();
+    assert!(sky.ring.is_some() && sky.other_stars.len() == 1);
+    app
+}
+
 /// Places spread over the globe (a deterministic, well-mixed pattern).
 pub fn places(n: usize) -> impl Iterator<Item = SurfacePlace> {
     (0..n).map(move |i| {

@@ -14,8 +14,8 @@ use bevy::asset::RenderAssetUsages;
 use bevy::light::NotShadowCaster;
 use bevy::mesh::{Indices, PrimitiveTopology};
 use bevy::prelude::*;
-use bevy_insola::ActiveWorld;
 use bevy_insola::prelude::*;
+use bevy_insola::{ActiveWorld, SkyRingArc};
 
 /// Radius of the ring's sphere around the camera, m. Near, because the engine's atmosphere
 /// adds the glow of the air between the camera and anything drawn (at 700 m, the star field's
@@ -38,6 +38,13 @@ pub struct RingBand {
     annulus: usize,
     /// The arc the mesh was built from (first and last outer points), to rebuild on change.
     built_from: (Vec3, Vec3),
+}
+
+/// What a band's mesh is rebuilt on: the first and last points of its outer edge (the arcs of
+/// the plugin's sky state are non-empty).
+fn arc_key(arc: &SkyRingArc) -> (Vec3, Vec3) {
+    let first = arc.outer.first().copied().unwrap_or_default();
+    (first, arc.outer.last().copied().unwrap_or(first))
 }
 
 /// A band mesh between two edges (each a list of unit directions; the inner edge falls back to
@@ -104,22 +111,22 @@ pub fn draw_ring(
         }
         return;
     };
-    let annuli = planet.ring().map(|r| r.annuli.clone()).unwrap_or_default();
+    // Borrowed, not copied: this runs every frame and allocates nothing (a mesh is built only
+    // when an annulus first shows or its arc moves, i.e. when the world or the place changes).
+    let annuli = planet.ring().map_or(&[][..], |r| &r.annuli[..]);
     let instant = planet.star_instant(clock.world_time_s());
     let star_lux = planet
         .light_model()
         .top_of_atmosphere(instant.toa_flux_w_m2)
         .illuminance_lux as f32;
     let [r, g, b] = sky.star.color.to_f32_array_no_alpha();
-    let mut seen = Vec::new();
     for (entity, mut band, mut mesh, material, mut transform) in &mut bands {
         transform.translation = centre;
         let Some(arc) = ring.arcs.iter().find(|a| a.annulus == band.annulus) else {
             commands.entity(entity).despawn();
             continue;
         };
-        seen.push(band.annulus);
-        let key = (arc.outer[0], *arc.outer.last().unwrap_or(&arc.outer[0]));
+        let key = arc_key(arc);
         if key != band.built_from {
             mesh.0 = meshes.add(band_mesh(&arc.inner, &arc.outer));
             band.built_from = key;
@@ -131,13 +138,22 @@ pub fn draw_ring(
         } else {
             UNLIT_SHARE * lit
         };
-        if let Some(mut m) = materials.get_mut(&material.0) {
-            let l = l * DISPLAY_SCALE;
-            m.emissive = LinearRgba::rgb(l * r, l * g, l * b);
+        let l = l * DISPLAY_SCALE;
+        let emissive = LinearRgba::rgb(l * r, l * g, l * b);
+        // Touched only when the colour changes, so an unchanged material is not sent to the
+        // GPU again.
+        if materials
+            .get(&material.0)
+            .is_some_and(|m| m.emissive != emissive)
+            && let Some(mut m) = materials.get_mut(&material.0)
+        {
+            m.emissive = emissive;
         }
     }
     for arc in &ring.arcs {
-        if seen.contains(&arc.annulus) || arc.outer.is_empty() {
+        // Bands already drawn (the query still holds those despawned above, but only for
+        // annuli no longer in the arcs, which this loop does not visit).
+        if arc.outer.is_empty() || bands.iter().any(|(_, b, ..)| b.annulus == arc.annulus) {
             continue;
         }
         // Black and emissive (as the star field): the band's own light, in cd/m².
@@ -151,7 +167,8 @@ pub fn draw_ring(
         commands.spawn((
             RingBand {
                 annulus: arc.annulus,
-                built_from: (Vec3::ZERO, Vec3::ZERO),
+                // The arc it is built from now, so the next frame does not build it again.
+                built_from: arc_key(arc),
             },
             Mesh3d(meshes.add(band_mesh(&arc.inner, &arc.outer))),
             MeshMaterial3d(material),

@@ -25,7 +25,8 @@
 //!   longer holds, so the climate forcing integrates the instantaneous insolation with the
 //!   ring's transmission over the hour angle ([`Planet::ring_daily_mean_insolation_w_m2`]).
 //! - **Sky** ([`sky`]): the ring's edges as arcs of points across a place's sky, the lit face
-//!   and the shadow now ([`Planet::ring_view`]).
+//!   and the shadow now ([`Planet::ring_view`]); the arcs depend on the place only
+//!   ([`Planet::ring_arcs`]), the rest on the instant ([`Planet::ring_moment`]).
 //!
 //! A ring of zero optical depth everywhere changes nothing: every path checks
 //! [`Planet::has_ring_shadow`] first, so a ringless or transparent-ring world runs exactly as
@@ -40,7 +41,7 @@ pub(crate) mod tests;
 
 pub use daily_mean::RING_DAILY_MEAN_NODES;
 pub use shadow::{RING_SHADOW_THRESHOLD, RingShadow, RingSight, noon_shadow_latitude_rad};
-pub use sky::{RING_ARC_POINTS, RingArc, RingEdgePoint, RingFace, RingView};
+pub use sky::{RING_ARC_POINTS, RingArc, RingArcs, RingEdgePoint, RingFace, RingMoment, RingView};
 
 use crate::climate::BandInsolation;
 use crate::planet::Planet;

@@ -15,7 +15,7 @@ use serde::{Deserialize, Serialize};
 
 use super::shadow::{RingShadow, place_unit_vector};
 use crate::planet::Planet;
-use crate::sky::Place;
+use crate::sky::{Place, StarInstant};
 
 /// Points sampled along each edge's visible arc (odd, so one falls on the meridian).
 pub const RING_ARC_POINTS: usize = 65;
@@ -134,12 +134,74 @@ fn edge_arc(
         .collect()
 }
 
+/// The part of the ring's view that depends only on the world and the place, not on the
+/// time: each annulus's arcs across the sky and the face the place looks at. Compute it once
+/// per place with [`Planet::ring_arcs`] and pair it with a [`RingMoment`] per instant (the ring
+/// does not move in the rotating frame, so the arcs stand still in a place's sky).
+#[derive(Debug, Clone, PartialEq, Serialize, Deserialize)]
+pub struct RingArcs {
+    /// The place the arcs are seen from.
+    pub place: Place,
+    /// Each annulus whose outer edge shows above the horizon, inside out.
+    pub arcs: Vec<RingArc>,
+    /// The face the place looks at: the place's side of the plane (sign of its latitude).
+    pub seen_face: RingFace,
+}
+
+impl RingArcs {
+    /// `true` if the place looks at the face the star lights at `moment` (both on one side of
+    /// the plane).
+    pub fn sees_lit_face(&self, moment: &RingMoment) -> bool {
+        self.seen_face == moment.lit_face && moment.lit_face != RingFace::EdgeOn
+    }
+
+    /// The full view at `moment` (clones the arcs; a caller that keeps the arcs needs only
+    /// the moment).
+    pub fn view_at(&self, moment: &RingMoment) -> RingView {
+        RingView {
+            t_s: moment.t_s,
+            arcs: self.arcs.clone(),
+            lit_face: moment.lit_face,
+            seen_face: self.seen_face,
+            shadow: moment.shadow,
+        }
+    }
+}
+
+/// The part of the ring's view that changes with time at one place: the face the star lights
+/// and the ring's shadow there ([`Planet::ring_moment`]). A few multiplications and at most
+/// one exponential; nothing allocated.
+#[derive(Debug, Clone, Copy, PartialEq, Serialize, Deserialize)]
+pub struct RingMoment {
+    /// World time, seconds since time zero.
+    pub t_s: f64,
+    /// The face the star lights: the star's side of the ring plane (sign of its declination).
+    pub lit_face: RingFace,
+    /// The ring's shadow at the place now, with the transmission of the star's beam.
+    pub shadow: RingShadow,
+}
+
 impl Planet {
     /// The ring seen from `place` at world time `t_s` (see the [module docs](self)); `None`
-    /// on worlds without a ring.
+    /// on worlds without a ring. The same as [`Planet::ring_arcs`] with
+    /// [`Planet::ring_moment`]; a caller asking every frame for one place keeps the arcs and
+    /// asks only for the moment.
     pub fn ring_view(&self, t_s: f64, place: Place) -> Option<RingView> {
+        let arcs = self.ring_arcs(place)?;
+        let moment = self.ring_moment(&self.star_instant(t_s), place)?;
+        Some(RingView {
+            t_s: moment.t_s,
+            arcs: arcs.arcs,
+            lit_face: moment.lit_face,
+            seen_face: arcs.seen_face,
+            shadow: moment.shadow,
+        })
+    }
+
+    /// The ring's arcs in `place`'s sky, which depend on the world and the place only; `None`
+    /// on worlds without a ring.
+    pub fn ring_arcs(&self, place: Place) -> Option<RingArcs> {
         let ring = self.ring()?;
-        let instant = self.star_instant(t_s);
         let n = place_unit_vector(place);
         let (so, co) = place.longitude_rad.sin_cos();
         let (sl, cl) = place.latitude_rad.sin_cos();
@@ -157,12 +219,21 @@ impl Planet {
             })
             .filter(|arc| !arc.outer.is_empty())
             .collect();
-        Some(RingView {
-            t_s,
+        Some(RingArcs {
+            place,
             arcs,
-            lit_face: RingFace::of_side(instant.sin_declination),
             seen_face: RingFace::of_side(place.latitude_rad),
-            shadow: self.ring_shadow(&instant, place),
+        })
+    }
+
+    /// The lit face and the ring's shadow at `place` at a precomputed instant of the primary
+    /// star (`instant.t_s` is the moment's time); `None` on worlds without a ring.
+    pub fn ring_moment(&self, instant: &StarInstant, place: Place) -> Option<RingMoment> {
+        self.ring()?;
+        Some(RingMoment {
+            t_s: instant.t_s,
+            lit_face: RingFace::of_side(instant.sin_declination),
+            shadow: self.ring_shadow(instant, place),
         })
     }
 }

@@ -629,3 +629,51 @@ fn arc_points_lie_on_the_ring_edges_and_above_the_horizon() {
         }
     }
 }
+
+#[test]
+fn arcs_kept_for_a_place_and_a_moment_per_instant_equal_the_full_view() {
+    // What a caller that keeps the arcs of one place (the plugin, every frame) shows must be
+    // the full view of each instant: the arcs computed once, at no particular time, agree to
+    // 1e-12 with those of a view at any instant, and the moment's face and shadow are the
+    // view's and the shadow query's.
+    let p = thalcary();
+    let mut rng = SplitMix(9191);
+    for _ in 0..20 {
+        let place = rad_place(rng.range(-1.4, 1.4), rng.range(-PI, PI));
+        let kept = p.ring_arcs(place).unwrap();
+        assert_eq!(kept.place, place);
+        for _ in 0..10 {
+            let t = rng.range(-3.0 * p.year_s(), 3.0 * p.year_s());
+            let view = p.ring_view(t, place).unwrap();
+            let instant = p.star_instant(t);
+            let moment = p.ring_moment(&instant, place).unwrap();
+            assert_eq!(moment.t_s, t);
+            assert_eq!(moment.lit_face, view.lit_face);
+            assert_eq!(kept.seen_face, view.seen_face);
+            assert_eq!(kept.sees_lit_face(&moment), view.sees_lit_face());
+            assert_eq!(moment.shadow, view.shadow);
+            assert_eq!(moment.shadow, p.ring_shadow(&instant, place));
+            assert_eq!(kept.arcs.len(), view.arcs.len());
+            for (a, b) in kept.arcs.iter().zip(&view.arcs) {
+                assert_eq!(a.annulus, b.annulus);
+                for (pa, pb) in [(&a.inner, &b.inner), (&a.outer, &b.outer)] {
+                    assert_eq!(pa.len(), pb.len());
+                    for (x, y) in pa.iter().zip(pb.iter()) {
+                        assert!((x.direction_enu - y.direction_enu).length() < 1e-12);
+                        assert!((x.altitude_rad - y.altitude_rad).abs() < 1e-12);
+                        assert!((x.azimuth_rad - y.azimuth_rad).abs() < 1e-12);
+                    }
+                }
+            }
+            assert_eq!(kept.view_at(&moment), view);
+        }
+    }
+    let no_ring = without_ring(&p);
+    let place = rad_place(0.5, 0.1);
+    assert!(no_ring.ring_arcs(place).is_none());
+    assert!(
+        no_ring
+            .ring_moment(&no_ring.star_instant(0.0), place)
+            .is_none()
+    );
+}
