@@ -288,6 +288,38 @@ impl ObserverFrame {
         }
     }
 
+    /// The conditions of every place of `places` into `out` (pairs up to the shorter):
+    /// [`ObserverFrame::conditions`] for each, with the common case (nothing can hide the
+    /// star, temperatures from the shared table) decided once for the whole slice, so its loop
+    /// has no branch per place.
+    pub fn fill(&self, places: &[SurfacePlace], out: &mut [LocalConditions]) {
+        match &self.climate {
+            FrameClimate::Table(table) if self.star.is_clear() => {
+                for (place, out) in places.iter().zip(out) {
+                    let sky = self.star.at_clear(&place.place);
+                    let (temperature_c, season) = table.at(&place.cell);
+                    *out = LocalConditions {
+                        sin_star_altitude: sky.sin_altitude,
+                        toa_insolation_w_m2: sky.toa_insolation_w_m2,
+                        temperature_c,
+                        star_is_up: sky.is_up,
+                        season: if place.place.sin_lat < 0.0 {
+                            self.season_south
+                        } else {
+                            self.season_north
+                        },
+                        thermal_season: season.into(),
+                    };
+                }
+            }
+            _ => {
+                for (place, out) in places.iter().zip(out) {
+                    *out = self.conditions(place);
+                }
+            }
+        }
+    }
+
     #[inline(always)]
     fn climate_at(&self, place: &SurfacePlace) -> (f32, ThermalSeason) {
         match &self.climate {
@@ -455,9 +487,7 @@ fn update_columns(
     conditions: &mut [LocalConditions],
 ) {
     let fill = |places: &[SurfacePlace], conditions: &mut [LocalConditions]| {
-        for (place, out) in places.iter().zip(conditions) {
-            *out = frame.conditions(place);
-        }
+        frame.fill(places, conditions);
     };
     let pool = bevy::tasks::ComputeTaskPool::try_get();
     match pool {
@@ -496,6 +526,49 @@ mod tests {
         });
         assert_eq!(bad, SurfacePlace::default());
         assert!(SurfacePlace::from_degrees(f64::NAN, 0.0).is_err());
+    }
+
+    #[test]
+    fn filling_a_slice_gives_each_place_its_conditions() {
+        let text = r#"(name: "Brindle", star: (temperature_k: 5800, radius_r_sun: 1, luminosity_l_sun: 1),
+            orbit: (semi_major_axis_au: 1, eccentricity: 0.05, periapsis_longitude_deg: 40, period_days: 300),
+            spin: (obliquity_deg: 130, solar_day_hours: 20))"#;
+        let planet = Planet::new(&WorldSpec::from_ron_str(text).unwrap()).unwrap();
+        let snapshot = ClimateSnapshot::from_fn(
+            |lat, h| 10.0 * lat.cos() + 3.0 * h.cos(),
+            |lat| {
+                if lat < 0.0 {
+                    insola::climate::Season::Steady
+                } else {
+                    insola::climate::Season::Summer
+                }
+            },
+        );
+        let places: Vec<SurfacePlace> = (0..500)
+            .map(|i| {
+                SurfacePlace::from_degrees(
+                    -89.5 + 0.358 * i as f64,
+                    (7.3 * i as f64) % 360.0 - 180.0,
+                )
+                .unwrap()
+            })
+            .collect();
+        for t in [0.0, 4.0e5, 9.1e6] {
+            for frame in [
+                ObserverFrame::with_table(&planet, t, &snapshot),
+                ObserverFrame::new(&planet, t, None),
+            ] {
+                let mut out = vec![LocalConditions::default(); places.len()];
+                frame.fill(&places, &mut out);
+                for (p, c) in places.iter().zip(&out) {
+                    let want = frame.conditions(p);
+                    assert!(
+                        c == &want || (c.temperature_c.is_nan() && want.temperature_c.is_nan()),
+                        "{c:?} vs {want:?}"
+                    );
+                }
+            }
+        }
     }
 
     #[test]

@@ -159,11 +159,13 @@ fn touch_observers(mut observers: Query<(&SurfacePlace, &mut LocalConditions)>) 
     let Ok(columns) = observers.contiguous_iter_mut() else {
         return;
     };
+    // Made once: a place's constructor takes sines and cosines, which is not memory traffic.
+    let origin = SurfacePlace::default();
     for (places, mut conditions) in columns {
         for (place, out) in places.iter().zip(conditions.iter_mut()) {
             // Reads the whole place, writes the whole conditions.
             *out = LocalConditions {
-                star_is_up: *black_box(place) == SurfacePlace::default(),
+                star_is_up: *black_box(place) == origin,
                 ..LocalConditions::default()
             };
         }

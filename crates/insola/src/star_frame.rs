@@ -347,12 +347,15 @@ impl StarFrameF32 {
     /// The star seen from `place`.
     #[inline(always)]
     pub fn at(&self, place: &PlaceF32) -> PlaceSkyF32 {
+        if self.is_clear() {
+            return self.at_clear(place);
+        }
         // cos(H0 + λ) by the angle-sum rule, from the stored sine and cosine of λ.
         let cos_h = self.cos_h0 * place.cos_lon - self.sin_h0 * place.sin_lon;
         let sin_alt =
             (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
         let clear = self.toa_flux_w_m2 * sin_alt.max(0.0);
-        let hidden = if (self.sights.is_empty() && self.ring.is_none()) || sin_alt <= 0.0 {
+        let hidden = if sin_alt <= 0.0 {
             0.0
         } else {
             self.hidden_fraction(place)
@@ -361,6 +364,30 @@ impl StarFrameF32 {
             sin_altitude: sin_alt,
             toa_insolation_w_m2: clear * (1.0 - hidden),
             star_hidden_fraction: hidden,
+            is_up: sin_alt > self.sin_rise_altitude,
+        }
+    }
+
+    /// `true` when nothing can hide the star anywhere at this instant (no moon in reach of
+    /// its disc, no ring): then [`StarFrameF32::at_clear`] is [`StarFrameF32::at`]. Bulk
+    /// loops ask this once and run the clear form, which has no branch per place.
+    #[inline]
+    pub fn is_clear(&self) -> bool {
+        self.sights.is_empty() && self.ring.is_none()
+    }
+
+    /// The sky at `place` with nothing hiding the star: [`StarFrameF32::at`] when
+    /// [`StarFrameF32::is_clear`] holds (and the clear sky, not the true one, otherwise).
+    #[inline(always)]
+    pub fn at_clear(&self, place: &PlaceF32) -> PlaceSkyF32 {
+        // cos(H0 + λ) by the angle-sum rule, from the stored sine and cosine of λ.
+        let cos_h = self.cos_h0 * place.cos_lon - self.sin_h0 * place.sin_lon;
+        let sin_alt =
+            (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
+        PlaceSkyF32 {
+            sin_altitude: sin_alt,
+            toa_insolation_w_m2: self.toa_flux_w_m2 * sin_alt.max(0.0),
+            star_hidden_fraction: 0.0,
             is_up: sin_alt > self.sin_rise_altitude,
         }
     }
