@@ -274,6 +274,18 @@ impl ObserverFrame {
     pub fn conditions(&self, place: &SurfacePlace) -> LocalConditions {
         let sky = self.star.at(&place.place);
         let (temperature_c, thermal_season) = self.climate_at(place);
+        self.assemble(place, &sky, temperature_c, thermal_season)
+    }
+
+    /// A place's conditions from its sky and temperature (the hemisphere picks the season).
+    #[inline(always)]
+    fn assemble(
+        &self,
+        place: &SurfacePlace,
+        sky: &insola::PlaceSkyF32,
+        temperature_c: f32,
+        thermal_season: ThermalSeason,
+    ) -> LocalConditions {
         LocalConditions {
             sin_star_altitude: sky.sin_altitude,
             toa_insolation_w_m2: sky.toa_insolation_w_m2,
@@ -298,18 +310,7 @@ impl ObserverFrame {
                 for (place, out) in places.iter().zip(out) {
                     let sky = self.star.at_clear(&place.place);
                     let (temperature_c, season) = table.at(&place.cell);
-                    *out = LocalConditions {
-                        sin_star_altitude: sky.sin_altitude,
-                        toa_insolation_w_m2: sky.toa_insolation_w_m2,
-                        temperature_c,
-                        star_is_up: sky.is_up,
-                        season: if place.place.sin_lat < 0.0 {
-                            self.season_south
-                        } else {
-                            self.season_north
-                        },
-                        thermal_season: season.into(),
-                    };
+                    *out = self.assemble(place, &sky, temperature_c, season.into());
                 }
             }
             _ => {
