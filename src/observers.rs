@@ -29,7 +29,9 @@
 use std::sync::Arc;
 
 use bevy::prelude::*;
-use insola::climate::{ClimateSnapshot, PlaceCell, PlaceTable};
+use insola::climate::{
+    ClimateSnapshot, PlaceCell, PlaceTable, SEASON_KEYS, season_key_is_south, season_key_row,
+};
 use insola::error::QueryError;
 use insola::map_climate::MapClimate;
 use insola::{Place, PlaceF32, Planet, StarFrameF32, WorldClimate};
@@ -162,8 +164,9 @@ enum FrameClimate {
         model: Arc<WorldClimate>,
         year_fraction: f64,
     },
-    /// A shared table turned to this instant (many places).
-    Table(Box<PlaceTable>),
+    /// A shared table turned to this instant (many places), and both seasons by
+    /// [`PlaceCell::season_key`].
+    Table(Box<PlaceTable>, Box<SeasonsByKey>),
     /// One map-climate query per place (the zonal climate gives the season).
     DirectMap {
         map: Arc<MapClimate>,
@@ -172,6 +175,9 @@ enum FrameClimate {
         solar_day_s: f64,
     },
 }
+
+/// The astronomical and thermal season of each [`PlaceCell::season_key`] at one instant.
+type SeasonsByKey = [(SeasonOfYear, ThermalSeason); SEASON_KEYS];
 
 /// One observer update: the core's star frame of the instant, the seasons of both
 /// hemispheres and the climate source (built once per update).
@@ -229,7 +235,7 @@ impl ObserverFrame {
             *seasons,
         );
         if let Ok(table) = table {
-            frame.climate = FrameClimate::Table(Box::new(table));
+            frame.climate = frame.table_climate(table);
         }
         frame
     }
@@ -243,9 +249,22 @@ impl ObserverFrame {
             frame.star.hour_angle_0_rad(),
             frame.star.spin_sign(),
         ) {
-            frame.climate = FrameClimate::Table(Box::new(table));
+            frame.climate = frame.table_climate(table);
         }
         frame
+    }
+
+    /// Temperatures from `table`, with each season key's pair of seasons for this instant.
+    fn table_climate(&self, table: PlaceTable) -> FrameClimate {
+        let seasons = std::array::from_fn(|key| {
+            let astronomical = if season_key_is_south(key) {
+                self.season_south
+            } else {
+                self.season_north
+            };
+            (astronomical, table.row_season(season_key_row(key)).into())
+        });
+        FrameClimate::Table(Box::new(table), Box::new(seasons))
     }
 
     fn star_only(planet: &Planet, t_s: f64) -> ObserverFrame {
@@ -306,11 +325,18 @@ impl ObserverFrame {
     /// has no branch per place.
     pub fn fill(&self, places: &[SurfacePlace], out: &mut [LocalConditions]) {
         match &self.climate {
-            FrameClimate::Table(table) if self.star.is_clear() => {
+            FrameClimate::Table(table, seasons) if self.star.is_clear() => {
                 for (place, out) in places.iter().zip(out) {
                     let sky = self.star.at_clear(&place.place);
-                    let (temperature_c, season) = table.at(&place.cell);
-                    *out = self.assemble(place, &sky, temperature_c, season.into());
+                    let (season, thermal_season) = seasons[place.cell.season_key()];
+                    *out = LocalConditions {
+                        sin_star_altitude: sky.sin_altitude,
+                        toa_insolation_w_m2: sky.toa_insolation_w_m2,
+                        temperature_c: table.temperature_at(&place.cell),
+                        star_is_up: sky.is_up,
+                        season,
+                        thermal_season,
+                    };
                 }
             }
             _ => {
@@ -325,10 +351,10 @@ impl ObserverFrame {
     fn climate_at(&self, place: &SurfacePlace) -> (f32, ThermalSeason) {
         match &self.climate {
             FrameClimate::None => (f32::NAN, ThermalSeason::Unknown),
-            FrameClimate::Table(table) => {
-                let (t, season) = table.at(&place.cell);
-                (t, season.into())
-            }
+            FrameClimate::Table(table, seasons) => (
+                table.temperature_at(&place.cell),
+                seasons[place.cell.season_key()].1,
+            ),
             FrameClimate::Direct {
                 model,
                 year_fraction,

@@ -210,9 +210,8 @@ impl StarFrame {
         StarFrameF32 {
             instant: Some(self.instant),
             sin_dec: m.sin_dec as f32,
-            cos_dec: m.cos_dec as f32,
-            sin_h0: m.sin_h0 as f32,
-            cos_h0: m.cos_h0 as f32,
+            cos_dec_sin_h0: (m.cos_dec * m.sin_h0) as f32,
+            cos_dec_cos_h0: (m.cos_dec * m.cos_h0) as f32,
             toa_flux_w_m2: self.instant.toa_flux_w_m2 as f32,
             sin_rise_altitude: self.rise_altitude_rad.sin() as f32,
             hour_angle_0_rad: self.hour_angle_0_rad(),
@@ -302,9 +301,10 @@ pub struct PlaceSkyF32 {
 pub struct StarFrameF32 {
     instant: Option<StarInstant>,
     sin_dec: f32,
-    cos_dec: f32,
-    sin_h0: f32,
-    cos_h0: f32,
+    /// cos δ · sin H₀ and cos δ · cos H₀, taken once per frame in double precision so a
+    /// place's altitude costs one product fewer.
+    cos_dec_sin_h0: f32,
+    cos_dec_cos_h0: f32,
     toa_flux_w_m2: f32,
     sin_rise_altitude: f32,
     hour_angle_0_rad: f64,
@@ -350,10 +350,7 @@ impl StarFrameF32 {
         if self.is_clear() {
             return self.at_clear(place);
         }
-        // cos(H0 + λ) by the angle-sum rule, from the stored sine and cosine of λ.
-        let cos_h = self.cos_h0 * place.cos_lon - self.sin_h0 * place.sin_lon;
-        let sin_alt =
-            (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
+        let sin_alt = self.sin_altitude(place);
         let clear = self.toa_flux_w_m2 * sin_alt.max(0.0);
         let hidden = if sin_alt <= 0.0 {
             0.0
@@ -380,16 +377,22 @@ impl StarFrameF32 {
     /// [`StarFrameF32::is_clear`] holds (and the clear sky, not the true one, otherwise).
     #[inline(always)]
     pub fn at_clear(&self, place: &PlaceF32) -> PlaceSkyF32 {
-        // cos(H0 + λ) by the angle-sum rule, from the stored sine and cosine of λ.
-        let cos_h = self.cos_h0 * place.cos_lon - self.sin_h0 * place.sin_lon;
-        let sin_alt =
-            (place.sin_lat * self.sin_dec + place.cos_lat * self.cos_dec * cos_h).clamp(-1.0, 1.0);
+        let sin_alt = self.sin_altitude(place);
         PlaceSkyF32 {
             sin_altitude: sin_alt,
             toa_insolation_w_m2: self.toa_flux_w_m2 * sin_alt.max(0.0),
             star_hidden_fraction: 0.0,
             is_up: sin_alt > self.sin_rise_altitude,
         }
+    }
+
+    /// Sine of the star's altitude at `place`: sin φ sin δ + cos φ cos δ cos(H₀ + λ), the
+    /// cosine of the hour angle by the angle-sum rule from the stored sine and cosine of λ.
+    #[inline(always)]
+    fn sin_altitude(&self, place: &PlaceF32) -> f32 {
+        let cos_dec_cos_h =
+            self.cos_dec_cos_h0 * place.cos_lon - self.cos_dec_sin_h0 * place.sin_lon;
+        (place.sin_lat * self.sin_dec + place.cos_lat * cos_dec_cos_h).clamp(-1.0, 1.0)
     }
 
     /// The eclipse path, kept out of line so the common path stays small.

@@ -22,12 +22,23 @@ const COLUMNS: usize = SNAPSHOT_HOUR_ANGLES;
 /// Intervals around the full turn.
 const INTERVALS: usize = COLUMNS - 1;
 
-/// Where a place reads a [`PlaceTable`]: the cell's lower corner and the weights toward the
-/// next row (north) and column (east), fixed for the place (12 bytes).
+/// Index of a table cell's lower corner: row × [`COLUMNS`] + column. The last row and
+/// column start no cell, so the four corners of any cell are in the table.
+const LAST_CORNER: usize = (SNAPSHOT_LATITUDES - 2) * COLUMNS + INTERVALS - 1;
+
+/// How many [`PlaceCell::season_key`]s there are: a table row and a hemisphere each.
+pub const SEASON_KEYS: usize = 2 * SNAPSHOT_LATITUDES;
+
+/// Where a place reads a [`PlaceTable`]: the cell's lower corner, the weights toward the
+/// next row (north) and column (east), and which row's season and which hemisphere it takes,
+/// all fixed for the place (12 bytes).
+///
+/// Why the corner is one flat index and the season one key: at a million places the read is
+/// bound by instructions, and these save the row arithmetic and the hemisphere test per place.
 #[derive(Debug, Clone, Copy, PartialEq)]
 pub struct PlaceCell {
-    row: u16,
-    column: u16,
+    corner: u16,
+    season_key: u8,
     row_weight: f32,
     column_weight: f32,
 }
@@ -50,13 +61,37 @@ impl PlaceCell {
             (row as usize).min(SNAPSHOT_LATITUDES - 2),
             (column as usize).min(INTERVALS - 1),
         );
+        let row_weight = (row - i0 as f64) as f32;
+        let nearest_row = if row_weight < 0.5 { i0 } else { i0 + 1 };
+        // The hemisphere as the single-precision sine of the latitude says it, the test the
+        // observers' star frame makes ([`crate::PlaceF32`]).
+        let south = (p.latitude_rad.sin() as f32) < 0.0;
         PlaceCell {
-            row: i0 as u16,
-            column: j0 as u16,
-            row_weight: (row - i0 as f64) as f32,
+            corner: (i0 * COLUMNS + j0) as u16,
+            season_key: (2 * nearest_row + usize::from(south)) as u8,
+            row_weight,
             column_weight: (column - j0 as f64) as f32,
         }
     }
+
+    /// The place's season key, below [`SEASON_KEYS`]: the table row nearest the place
+    /// ([`season_key_row`]) and whether it is south of the equator ([`season_key_is_south`]).
+    /// A per-instant array of [`SEASON_KEYS`] seasons indexed by it gives a place both its
+    /// hemisphere's astronomical season and its row's thermal season in one read.
+    #[inline(always)]
+    pub fn season_key(&self) -> usize {
+        usize::from(self.season_key).min(SEASON_KEYS - 1)
+    }
+}
+
+/// The table row of a [`PlaceCell::season_key`].
+pub fn season_key_row(key: usize) -> usize {
+    (key / 2).min(SNAPSHOT_LATITUDES - 1)
+}
+
+/// Whether a [`PlaceCell::season_key`] belongs to a place south of the equator.
+pub fn season_key_is_south(key: usize) -> bool {
+    key % 2 == 1
 }
 
 /// Temperatures by latitude and longitude at one instant, and the season of each row.
@@ -127,16 +162,27 @@ impl PlaceTable {
     /// Temperature, °C, and season at `cell`.
     #[inline(always)]
     pub fn at(&self, cell: &PlaceCell) -> (f32, Season) {
-        let (i0, j0) = (
-            usize::from(cell.row).min(SNAPSHOT_LATITUDES - 2),
-            usize::from(cell.column).min(COLUMNS - 2),
-        );
-        let (near, far) = (&self.rows[i0], &self.rows[i0 + 1]);
+        (
+            self.temperature_at(cell),
+            self.row_season(season_key_row(cell.season_key())),
+        )
+    }
+
+    /// Temperature at `cell`, °C: bilinear between the cell's four corners.
+    #[inline(always)]
+    pub fn temperature_at(&self, cell: &PlaceCell) -> f32 {
+        let t = self.rows.as_flattened();
+        let k = usize::from(cell.corner).min(LAST_CORNER);
         let w = cell.column_weight;
-        let a = near[j0] + w * (near[j0 + 1] - near[j0]);
-        let b = far[j0] + w * (far[j0 + 1] - far[j0]);
-        let nearest_row = if cell.row_weight < 0.5 { i0 } else { i0 + 1 };
-        (a + cell.row_weight * (b - a), self.seasons[nearest_row])
+        let south = t[k] + w * (t[k + 1] - t[k]);
+        let north = t[k + COLUMNS] + w * (t[k + COLUMNS + 1] - t[k + COLUMNS]);
+        south + cell.row_weight * (north - south)
+    }
+
+    /// The season of table row `row` (clamped to the last row), from the south pole to the
+    /// north pole every 2°.
+    pub fn row_season(&self, row: usize) -> Season {
+        self.seasons[row.min(SNAPSHOT_LATITUDES - 1)]
     }
 }
 
@@ -170,5 +216,52 @@ mod tests {
             }
         }
         assert!(PlaceTable::turned(&ClimateSnapshot::default(), 0.0, 1.0).is_none());
+    }
+
+    #[test]
+    fn a_cell_reads_the_rows_and_season_of_its_latitude_and_hemisphere() {
+        // Rows are 2° apart from the south pole, columns 3.75° from −180° (the snapshot's
+        // spacing): each place's corner, weights and nearest row follow from its coordinates.
+        let snapshot = ClimateSnapshot::from_fn(smooth, |lat| {
+            if lat < 0.0 {
+                Season::Winter
+            } else {
+                Season::Summer
+            }
+        });
+        let table = PlaceTable::turned(&snapshot, 0.0, 1.0).unwrap();
+        let rows = table.rows.as_flattened();
+        for (lat_deg, lon_deg) in [
+            (-89.9, -180.0),
+            (-0.3, 10.0),
+            (0.0, 0.0),
+            (0.9, 179.9),
+            (90.0, 180.0),
+        ] {
+            let place = Place::normalised(lat_deg, lon_deg);
+            let cell = PlaceCell::new(place);
+            let row = ((lat_deg + 90.0) / 2.0).min(90.0);
+            let column = ((lon_deg + 180.0) / 3.75).rem_euclid(96.0);
+            let (i0, j0) = ((row as usize).min(89), (column as usize).min(95));
+            let (rw, cw) = ((row - i0 as f64) as f32, (column - j0 as f64) as f32);
+            let at = |i: usize, j: usize| rows[i * COLUMNS + j];
+            let south = at(i0, j0) + cw * (at(i0, j0 + 1) - at(i0, j0));
+            let north = at(i0 + 1, j0) + cw * (at(i0 + 1, j0 + 1) - at(i0 + 1, j0));
+            let expected = south + rw * (north - south);
+            let got = table.temperature_at(&cell);
+            assert!(
+                (got - expected).abs() < 1e-4,
+                "{lat_deg} {lon_deg}: {got} vs {expected}"
+            );
+            let nearest = if rw < 0.5 { i0 } else { i0 + 1 };
+            assert_eq!(season_key_row(cell.season_key()), nearest, "{lat_deg}");
+            assert_eq!(
+                season_key_is_south(cell.season_key()),
+                lat_deg < 0.0,
+                "{lat_deg}"
+            );
+            assert_eq!(table.at(&cell).1, table.row_season(nearest));
+            assert!(cell.season_key() < SEASON_KEYS);
+        }
     }
 }
