@@ -30,7 +30,7 @@ use std::sync::Arc;
 
 use bevy::prelude::*;
 use insola::climate::{
-    ClimateSnapshot, PlaceCell, PlaceTable, SEASON_KEYS, season_key_is_south, season_key_row,
+    ClimateSnapshot, PlaceCell, PlaceTable, season_key_is_south, season_key_row,
 };
 use insola::error::QueryError;
 use insola::map_climate::MapClimate;
@@ -117,8 +117,10 @@ impl SurfacePlace {
 }
 
 /// What an observer at a [`SurfacePlace`] has, as of the world time in [`ObserverInstant`].
+/// Laid out in field order (16 bytes).
 #[derive(Component, Debug, Clone, Copy, PartialEq, Default, Reflect)]
 #[reflect(Component, Debug, Default, Clone)]
+#[repr(C)]
 pub struct LocalConditions {
     /// Sine of the geometric altitude of the star's centre (−1 to 1).
     pub sin_star_altitude: f32,
@@ -176,8 +178,18 @@ enum FrameClimate {
     },
 }
 
-/// The astronomical and thermal season of each [`PlaceCell::season_key`] at one instant.
-type SeasonsByKey = [(SeasonOfYear, ThermalSeason); SEASON_KEYS];
+/// The astronomical and thermal season of a [`PlaceCell::season_key`], in the order
+/// [`LocalConditions`] keeps them (so a place's pair is one two-byte copy).
+#[derive(Debug, Clone, Copy, Default)]
+#[repr(C)]
+struct SeasonPair {
+    season: SeasonOfYear,
+    thermal_season: ThermalSeason,
+}
+
+/// Both seasons of every season key at one instant: 256 entries, so indexing by the one-byte
+/// key needs no bounds test (keys from [`insola::climate::SEASON_KEYS`] on are never made).
+type SeasonsByKey = [SeasonPair; 256];
 
 /// One observer update: the core's star frame of the instant, the seasons of both
 /// hemispheres and the climate source (built once per update).
@@ -256,13 +268,13 @@ impl ObserverFrame {
 
     /// Temperatures from `table`, with each season key's pair of seasons for this instant.
     fn table_climate(&self, table: PlaceTable) -> FrameClimate {
-        let seasons = std::array::from_fn(|key| {
-            let astronomical = if season_key_is_south(key) {
+        let seasons = std::array::from_fn(|key| SeasonPair {
+            season: if season_key_is_south(key) {
                 self.season_south
             } else {
                 self.season_north
-            };
-            (astronomical, table.row_season(season_key_row(key)).into())
+            },
+            thermal_season: table.row_season(season_key_row(key)).into(),
         });
         FrameClimate::Table(Box::new(table), Box::new(seasons))
     }
@@ -328,14 +340,14 @@ impl ObserverFrame {
             FrameClimate::Table(table, seasons) if self.star.is_clear() => {
                 for (place, out) in places.iter().zip(out) {
                     let sky = self.star.at_clear(&place.place);
-                    let (season, thermal_season) = seasons[place.cell.season_key()];
+                    let seasons = seasons[usize::from(place.cell.season_key())];
                     *out = LocalConditions {
                         sin_star_altitude: sky.sin_altitude,
                         toa_insolation_w_m2: sky.toa_insolation_w_m2,
                         temperature_c: table.temperature_at(&place.cell),
                         star_is_up: sky.is_up,
-                        season,
-                        thermal_season,
+                        season: seasons.season,
+                        thermal_season: seasons.thermal_season,
                     };
                 }
             }
@@ -353,7 +365,7 @@ impl ObserverFrame {
             FrameClimate::None => (f32::NAN, ThermalSeason::Unknown),
             FrameClimate::Table(table, seasons) => (
                 table.temperature_at(&place.cell),
-                seasons[place.cell.season_key()].1,
+                seasons[usize::from(place.cell.season_key())].thermal_season,
             ),
             FrameClimate::Direct {
                 model,

@@ -76,11 +76,12 @@ impl PlaceCell {
 
     /// The place's season key, below [`SEASON_KEYS`]: the table row nearest the place
     /// ([`season_key_row`]) and whether it is south of the equator ([`season_key_is_south`]).
-    /// A per-instant array of [`SEASON_KEYS`] seasons indexed by it gives a place both its
-    /// hemisphere's astronomical season and its row's thermal season in one read.
+    /// A per-instant array of seasons indexed by it gives a place both its hemisphere's
+    /// astronomical season and its row's thermal season in one read; an array of 256 needs no
+    /// bounds test.
     #[inline(always)]
-    pub fn season_key(&self) -> usize {
-        usize::from(self.season_key).min(SEASON_KEYS - 1)
+    pub fn season_key(&self) -> u8 {
+        self.season_key
     }
 }
 
@@ -164,7 +165,7 @@ impl PlaceTable {
     pub fn at(&self, cell: &PlaceCell) -> (f32, Season) {
         (
             self.temperature_at(cell),
-            self.row_season(season_key_row(cell.season_key())),
+            self.row_season(season_key_row(usize::from(cell.season_key()))),
         )
     }
 
