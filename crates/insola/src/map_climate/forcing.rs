@@ -175,7 +175,7 @@ impl MapForcing {
         // out, as in the zonal model's summed forcing.
         let shining: Vec<usize> = planet.shining_stars().collect();
         let stars = shining.len();
-        let suns = (0..steps)
+        let suns: Vec<StepSun> = (0..steps)
             .flat_map(|k| shining.iter().map(move |&j| (k, j)))
             .filter_map(|(k, j)| {
                 let t = k as f64 * dt;
@@ -198,6 +198,9 @@ impl MapForcing {
                 })
             })
             .collect();
+        // `shining_stars` names only stars the world has, so no instant is missing and the
+        // step-major layout holds.
+        debug_assert_eq!(suns.len(), steps * stars);
         Ok(MapForcing {
             mode,
             steps,
