@@ -20,6 +20,14 @@
 //! mean is the quadrature under the ring ([`Planet::ring_band_insolation`]) and the two
 //! instantaneous forms multiply each cell's flux by the ring's transmission there
 //! ([`crate::rings`]).
+//!
+//! On a world with a shining companion every form sums the stars: the daily mean adds each
+//! star's table ([`Planet::star_band_tables`]); the two instantaneous forms keep each star's
+//! declination, flux and hour angle per step (from [`Planet::star_instant_of`], the core's
+//! per-star sky) and add each star's `F cos z`, each dimmed by the ring along its own ray.
+//! As in the zonal model ([`Planet::equilibrate_climate`]), the stars' eclipses of each other,
+//! a few hours long, are left out of the forcing. A dark companion (luminosity 0) adds nothing
+//! and is skipped, so such a world is forced exactly as its one-star twin.
 
 use std::f64::consts::TAU;
 
@@ -68,8 +76,11 @@ pub struct MapForcing {
     year_s: f64,
     /// Daily-mean table (daily-mean mode).
     daily: Option<BandInsolation>,
-    /// Star geometry per step (instantaneous and locked modes).
+    /// Star geometry per step and shining star (instantaneous and locked modes), step-major:
+    /// star `j` of step `k` at `k * stars + j`, the primary first.
     suns: Vec<StepSun>,
+    /// Shining stars per step in `suns` (1 on a one-star world).
+    stars: usize,
     /// The orbit's declination and distance samples, for the day-night layer of queries.
     annual: Option<AnnualForcing>,
     /// The ring, for the instantaneous forms (`None` without a shadow-casting ring).
@@ -90,6 +101,7 @@ impl MapForcing {
             year_s: forcing.year_s,
             daily: Some(daily),
             suns: Vec::new(),
+            stars: 1,
             annual: Some(forcing.clone()),
             ring: None,
         })
@@ -115,6 +127,7 @@ impl MapForcing {
             year_s: table.year_s(),
             daily: Some(table),
             suns: Vec::new(),
+            stars: 1,
             annual: None,
             ring: None,
         })
@@ -133,7 +146,7 @@ impl MapForcing {
             if planet.daily_mean_needs_quadrature() {
                 // Under a ring (see `crate::rings::daily_mean`) or two suns (each star's table,
                 // summed): the day-night layer keeps the primary's path. Slow rotators and
-                // locked worlds are forced by the primary alone for now.
+                // locked worlds sum the stars step by step below.
                 let daily = planet.star_band_tables(&annual, grid.rows(), steps)?;
                 let mut forcing = Self::daily_mean(&annual, grid, steps)?;
                 forcing.daily = Some(daily);
@@ -157,33 +170,44 @@ impl MapForcing {
             h_mean_0 = i0.sidereal_angle_rad - i0.star_mean_longitude_rad;
             n
         };
-        let suns = (0..steps)
-            .map(|k| {
+        // Every shining star (a dark companion adds no light), the primary first: each star's
+        // own instant from the core's per-star sky. The stars' eclipses of each other are left
+        // out, as in the zonal model's summed forcing.
+        let shining: Vec<usize> = planet.shining_stars().collect();
+        let stars = shining.len();
+        let suns: Vec<StepSun> = (0..steps)
+            .flat_map(|k| shining.iter().map(move |&j| (k, j)))
+            .filter_map(|(k, j)| {
                 let t = k as f64 * dt;
-                let i = planet.star_instant(t);
+                let i = planet.star_instant_of(j, t)?;
                 let h0_rad = if locked {
                     i.sidereal_angle_rad - i.right_ascension_rad
                 } else {
                     // The mean sun's hour angle on the stretched day, plus the star's offset
-                    // from the mean sun (the equation of time), so only the day length changes.
+                    // from the mean sun (the equation of time; for a companion its offset in
+                    // right ascension too), so only the day length changes.
                     h_mean_0
                         + sense * TAU * days * k as f64 / steps as f64
                         + (i.star_mean_longitude_rad - i.right_ascension_rad)
                 };
-                StepSun {
+                Some(StepSun {
                     sin_decl: i.sin_declination,
                     cos_decl: i.cos_declination,
                     flux_w_m2: i.toa_flux_w_m2,
                     h0_rad,
-                }
+                })
             })
             .collect();
+        // `shining_stars` names only stars the world has, so no instant is missing and the
+        // step-major layout holds.
+        debug_assert_eq!(suns.len(), steps * stars);
         Ok(MapForcing {
             mode,
             steps,
             year_s,
             daily: None,
             suns,
+            stars,
             annual: Some(annual),
             ring: planet.ring_geometry(),
         })
@@ -250,7 +274,39 @@ impl MapForcing {
             }
             return;
         }
-        let s = self.suns[k];
+        for j in 0..self.stars {
+            self.fill_star(
+                k,
+                j,
+                grid,
+                cos_lon,
+                sin_lon,
+                scratch,
+                out,
+                apply_ring,
+                j > 0,
+            );
+        }
+    }
+
+    /// Star `j`'s part of the instantaneous insolation at step `k`, W m⁻², written into `out`
+    /// (or added to it with `add`): `F max(0, cos z)`, times the ring's transmission along
+    /// that star's ray when `apply_ring`.
+    #[allow(clippy::too_many_arguments)]
+    fn fill_star(
+        &self,
+        k: usize,
+        j: usize,
+        grid: &MapGrid,
+        cos_lon: &[f64],
+        sin_lon: &[f64],
+        scratch: &mut [f64],
+        out: &mut [f64],
+        apply_ring: bool,
+        add: bool,
+    ) {
+        let cols = grid.columns();
+        let s = self.suns[k * self.stars + j];
         let (sh, ch) = s.h0_rad.sin_cos();
         for ((c, &cl), &sl) in scratch.iter_mut().zip(cos_lon).zip(sin_lon) {
             *c = ch * cl - sh * sl;
@@ -261,19 +317,21 @@ impl MapForcing {
         {
             let (sp, cp) = lat.sin_cos();
             let (a, b) = (s.flux_w_m2 * sp * s.sin_decl, s.flux_w_m2 * cp * s.cos_decl);
-            for (q, &c) in row.iter_mut().zip(scratch.iter()) {
-                *q = (a + b * c).max(0.0);
-            }
-            if let (Some(ring), true) = (&self.ring, apply_ring) {
-                // The star in the rotating frame: h0 = θ − α is the geometric hour angle at
-                // longitude 0, so the star stands at longitude −h0.
-                let star = glam::DVec3::new(s.cos_decl * ch, -s.cos_decl * sh, s.sin_decl);
-                for ((q, &cl), &sl) in row.iter_mut().zip(cos_lon).zip(sin_lon) {
-                    if *q > 0.0 {
-                        let n = glam::DVec3::new(cp * cl, cp * sl, sp);
-                        *q *= ring.shadow(n, star).transmission;
-                    }
+            // The star in the rotating frame: h0 = θ − α is the geometric hour angle at
+            // longitude 0, so the star stands at longitude −h0.
+            let star = glam::DVec3::new(s.cos_decl * ch, -s.cos_decl * sh, s.sin_decl);
+            let ring = self.ring.as_ref().filter(|_| apply_ring);
+            for (((q, &c), &cl), &sl) in
+                row.iter_mut().zip(scratch.iter()).zip(cos_lon).zip(sin_lon)
+            {
+                let mut v = (a + b * c).max(0.0);
+                if let Some(ring) = ring
+                    && v > 0.0
+                {
+                    let n = glam::DVec3::new(cp * cl, cp * sl, sp);
+                    v *= ring.shadow(n, star).transmission;
                 }
+                if add { *q += v } else { *q = v }
             }
         }
     }
@@ -327,24 +385,51 @@ impl MapForcing {
         } else {
             Vec::new()
         };
+        // Star by star: each star's μ is its own clear flux over its own flux at the planet,
+        // weighted by the sunlight it gives (the sum over stars of Q_j μ_j over the sum of Q_j).
         for k in 0..self.steps {
-            self.fill(k, grid, &cos_lon, &sin_lon, &mut scratch, &mut q);
-            let flux = self.suns[k].flux_w_m2;
-            if self.ring.is_some() {
-                // μ from the clear flux; the weight is the sunlight under the ring.
-                self.fill_with_ring(k, grid, &cos_lon, &sin_lon, &mut scratch, &mut clear, false);
-                for (((sq, sqm), &qk), &ck) in
-                    sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q).zip(&clear)
-                {
-                    *sq += qk;
-                    *sqm += qk * ck / flux;
+            for j in 0..self.stars {
+                let flux = self.suns[k * self.stars + j].flux_w_m2;
+                if flux <= 0.0 {
+                    continue;
                 }
-                continue;
-            }
-            for ((sq, sqm), &qk) in sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q) {
-                *sq += qk;
-                // μ = Q / (S/ρ²): the weight Q is the sunlight itself.
-                *sqm += qk * qk / flux;
+                self.fill_star(
+                    k,
+                    j,
+                    grid,
+                    &cos_lon,
+                    &sin_lon,
+                    &mut scratch,
+                    &mut q,
+                    true,
+                    false,
+                );
+                if self.ring.is_some() {
+                    // μ from the clear flux; the weight is the sunlight under the ring.
+                    self.fill_star(
+                        k,
+                        j,
+                        grid,
+                        &cos_lon,
+                        &sin_lon,
+                        &mut scratch,
+                        &mut clear,
+                        false,
+                        false,
+                    );
+                    for (((sq, sqm), &qk), &ck) in
+                        sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q).zip(&clear)
+                    {
+                        *sq += qk;
+                        *sqm += qk * ck / flux;
+                    }
+                    continue;
+                }
+                for ((sq, sqm), &qk) in sum_q.iter_mut().zip(sum_qmu.iter_mut()).zip(&q) {
+                    *sq += qk;
+                    // μ = Q / (S/ρ²): the weight Q is the sunlight itself.
+                    *sqm += qk * qk / flux;
+                }
             }
         }
         let mean = sum_q.iter().map(|s| s / self.steps as f64).collect();

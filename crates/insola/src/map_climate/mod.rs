@@ -46,6 +46,8 @@ mod solver;
 mod surface;
 #[cfg(test)]
 mod validation;
+#[cfg(test)]
+mod validation_two_stars;
 mod world;
 mod zones;
 

@@ -398,7 +398,7 @@ fn verdance_map_balances_energy_and_refines() {
     assert!((means[0] - means[1]).abs() < 0.1, "{means:?}");
 }
 
-fn coalbedo_of(model: &MapEnergyBalanceModel, c: usize, t: f64) -> f64 {
+pub(super) fn coalbedo_of(model: &MapEnergyBalanceModel, c: usize, t: f64) -> f64 {
     let sheet = model.surface.ice_sheet_fraction[c];
     let free = 1.0 - model.ice_free_albedo()[c];
     let ice = 1.0 - model.spec.ice_albedo;
