@@ -6,6 +6,8 @@
 
 use std::f64::consts::PI;
 
+use crate::widest_vectors::widest_vectors;
+
 /// Instantaneous insolation on a horizontal surface, W m⁻².
 ///
 /// `Q = (S0/ρ²) max(0, sin φ sin δ + cos φ cos δ cos H)`, `H` the hour angle in radians.
@@ -109,39 +111,9 @@ struct DayTrig {
     scale: f64,
 }
 
-/// One row of the grid, with the widest vector lanes this processor has.
-// The one `unsafe` in the crate: calling the 256-bit build after checking the processor has it
-// (the standard library's own run-time detection).
-#[allow(unsafe_code)]
-fn grid_row(lats: &LatitudeTrig, day: DayTrig, row: &mut [f64]) {
-    #[cfg(target_arch = "x86_64")]
-    if std::arch::is_x86_feature_detected!("avx512f") {
-        // SAFETY: the processor has just been seen to support AVX-512F.
-        unsafe { grid_row_avx512(lats, day, row) };
-        return;
-    }
-    #[cfg(target_arch = "x86_64")]
-    if std::arch::is_x86_feature_detected!("avx2") {
-        // SAFETY: the processor has just been seen to support AVX2.
-        unsafe { grid_row_avx2(lats, day, row) };
-        return;
-    }
-    grid_row_lanes(lats, day, row);
-}
-
-/// [`grid_row_lanes`] compiled for 256-bit lanes. Without fused multiply-adds (not enabled), so
-/// each lane rounds as the scalar code does: the numbers are the same bit for bit.
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2")]
-fn grid_row_avx2(lats: &LatitudeTrig, day: DayTrig, row: &mut [f64]) {
-    grid_row_lanes(lats, day, row);
-}
-
-/// [`grid_row_lanes`] compiled for 512-bit lanes (the same numbers, as above).
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx512f")]
-fn grid_row_avx512(lats: &LatitudeTrig, day: DayTrig, row: &mut [f64]) {
-    grid_row_lanes(lats, day, row);
+widest_vectors! {
+    /// One row of the grid, with the widest vector lanes this processor has.
+    fn grid_row(lats: &LatitudeTrig, day: DayTrig, row: &mut [f64]) => grid_row_lanes;
 }
 
 #[inline(always)]

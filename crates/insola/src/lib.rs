@@ -36,6 +36,7 @@ pub mod spin;
 pub mod star_frame;
 pub mod star_pair;
 pub mod star_track;
+mod widest_vectors;
 pub mod world;
 mod world_climate;
 

@@ -26,6 +26,7 @@ mod cursor;
 use crate::error::QueryError;
 use crate::planet::Planet;
 use crate::sky::{Place, PreparedPlace, StarPosition};
+use crate::widest_vectors::widest_vectors;
 use cursor::{ANCHOR_EVERY, Cursor, LANES};
 
 /// Samples per parallel work item: a whole number of anchor blocks, large enough that
@@ -211,25 +212,7 @@ impl Planet {
         first: usize,
         out: &mut [StarPosition],
     ) {
-        #[cfg(target_arch = "x86_64")]
-        if std::arch::is_x86_feature_detected!("avx512f") {
-            // SAFETY: the processor has just been seen to support AVX-512F.
-            #[allow(unsafe_code)]
-            unsafe {
-                positions_avx512(self, place, times, first, out)
-            };
-            return;
-        }
-        #[cfg(target_arch = "x86_64")]
-        if std::arch::is_x86_feature_detected!("avx2") {
-            // SAFETY: the processor has just been seen to support AVX2.
-            #[allow(unsafe_code)]
-            unsafe {
-                positions_avx2(self, place, times, first, out)
-            };
-            return;
-        }
-        positions(self, place, times, first, out);
+        positions_widest(self, place, times, first, out);
     }
 
     /// [`Planet::positions_block`] for the insolation alone.
@@ -249,31 +232,15 @@ impl Planet {
     }
 }
 
-/// [`positions`] compiled for 512-bit vector lanes. Without fused multiply-adds (not enabled),
-/// each lane rounds as the plain build does: the same numbers bit for bit.
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx512f")]
-fn positions_avx512(
-    planet: &Planet,
-    place: PreparedPlace,
-    times: &TrackTimes<'_>,
-    first: usize,
-    out: &mut [StarPosition],
-) {
-    positions(planet, place, times, first, out);
-}
-
-/// [`positions`] compiled for 256-bit vector lanes (the same numbers, as above).
-#[cfg(target_arch = "x86_64")]
-#[target_feature(enable = "avx2")]
-fn positions_avx2(
-    planet: &Planet,
-    place: PreparedPlace,
-    times: &TrackTimes<'_>,
-    first: usize,
-    out: &mut [StarPosition],
-) {
-    positions(planet, place, times, first, out);
+widest_vectors! {
+    /// [`positions`] with the widest vector lanes this processor has.
+    fn positions_widest(
+        planet: &Planet,
+        place: PreparedPlace,
+        times: &TrackTimes<'_>,
+        first: usize,
+        out: &mut [StarPosition],
+    ) => positions;
 }
 
 /// Samples `first …` into `out`: evenly spaced samples after each block's anchor [`LANES`] at
