@@ -317,18 +317,19 @@ impl ObserverFrame {
         temperature_c: f32,
         thermal_season: ThermalSeason,
     ) -> LocalConditions {
-        LocalConditions {
-            sin_star_altitude: sky.sin_altitude,
-            toa_insolation_w_m2: sky.toa_insolation_w_m2,
+        let season = if place.place.sin_lat < 0.0 {
+            self.season_south
+        } else {
+            self.season_north
+        };
+        conditions_of(
+            sky,
             temperature_c,
-            star_is_up: sky.is_up,
-            season: if place.place.sin_lat < 0.0 {
-                self.season_south
-            } else {
-                self.season_north
+            SeasonPair {
+                season,
+                thermal_season,
             },
-            thermal_season,
-        }
+        )
     }
 
     /// The conditions of every place of `places` into `out` (pairs up to the shorter):
@@ -341,14 +342,7 @@ impl ObserverFrame {
                 for (place, out) in places.iter().zip(out) {
                     let sky = self.star.at_clear(&place.place);
                     let seasons = seasons[usize::from(place.cell.season_key())];
-                    *out = LocalConditions {
-                        sin_star_altitude: sky.sin_altitude,
-                        toa_insolation_w_m2: sky.toa_insolation_w_m2,
-                        temperature_c: table.temperature_at(&place.cell),
-                        star_is_up: sky.is_up,
-                        season: seasons.season,
-                        thermal_season: seasons.thermal_season,
-                    };
+                    *out = conditions_of(&sky, table.temperature_at(&place.cell), seasons);
                 }
             }
             _ => {
@@ -393,6 +387,23 @@ impl ObserverFrame {
                 )
             }
         }
+    }
+}
+
+/// The conditions of a place with sky `sky`, temperature `temperature_c` and `seasons`.
+#[inline(always)]
+fn conditions_of(
+    sky: &insola::PlaceSkyF32,
+    temperature_c: f32,
+    seasons: SeasonPair,
+) -> LocalConditions {
+    LocalConditions {
+        sin_star_altitude: sky.sin_altitude,
+        toa_insolation_w_m2: sky.toa_insolation_w_m2,
+        temperature_c,
+        star_is_up: sky.is_up,
+        season: seasons.season,
+        thermal_season: seasons.thermal_season,
     }
 }
 

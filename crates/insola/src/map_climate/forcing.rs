@@ -250,22 +250,6 @@ impl MapForcing {
         scratch: &mut [f64],
         out: &mut [f64],
     ) {
-        self.fill_with_ring(k, grid, cos_lon, sin_lon, scratch, out, true);
-    }
-
-    /// [`MapForcing::fill`], with the ring's transmission applied or not (the clear flux gives
-    /// the cosine of the zenith angle that weighs the sky albedo).
-    #[allow(clippy::too_many_arguments)]
-    fn fill_with_ring(
-        &self,
-        k: usize,
-        grid: &MapGrid,
-        cos_lon: &[f64],
-        sin_lon: &[f64],
-        scratch: &mut [f64],
-        out: &mut [f64],
-        apply_ring: bool,
-    ) {
         let cols = grid.columns();
         let k = k % self.steps;
         if let Some(daily) = &self.daily {
@@ -275,17 +259,7 @@ impl MapForcing {
             return;
         }
         for j in 0..self.stars {
-            self.fill_star(
-                k,
-                j,
-                grid,
-                cos_lon,
-                sin_lon,
-                scratch,
-                out,
-                apply_ring,
-                j > 0,
-            );
+            self.fill_star(k, j, grid, cos_lon, sin_lon, scratch, out, true, j > 0);
         }
     }
 
